@@ -1,0 +1,37 @@
+import { env } from '$env/dynamic/private';
+
+/** Settings read from the environment; every one is documented in .env.example. */
+export const config = {
+	get dataDir() {
+		return env.DATA_DIR || './data';
+	},
+	get s3() {
+		return {
+			endpoint: required('S3_ENDPOINT'),
+			bucket: required('S3_BUCKET'),
+			region: env.S3_REGION || 'us-east-1',
+			accessKeyId: required('S3_ACCESS_KEY_ID'),
+			secretAccessKey: required('S3_SECRET_ACCESS_KEY')
+		};
+	},
+	get smtpUrl() {
+		return required('SMTP_URL');
+	},
+	get mailFrom() {
+		return env.MAIL_FROM || 'Checkplate <checkplate@localhost>';
+	},
+	/** Set by `npm start` when the mail fake is in use: where it keeps what it caught. */
+	get mailFakeDir() {
+		return env.MAIL_FAKE_DIR || null;
+	}
+};
+
+function required(name: string): string {
+	const value = env[name];
+	if (!value) {
+		throw new Error(
+			`Setting ${name} is missing: see .env.example (npm start sets it for the fakes)`
+		);
+	}
+	return value;
+}

@@ -1,0 +1,149 @@
+import { createHash } from 'node:crypto';
+import { PassThrough, Readable, Transform } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import {
+	DeleteObjectCommand,
+	GetObjectCommand,
+	HeadObjectCommand,
+	S3Client
+} from '@aws-sdk/client-s3';
+import { Upload } from '@aws-sdk/lib-storage';
+
+export interface StorageSettings {
+	endpoint: string;
+	bucket: string;
+	region: string;
+	accessKeyId: string;
+	secretAccessKey: string;
+}
+
+export interface StoredObject {
+	key: string;
+	size: number;
+	sha256: string;
+}
+
+export interface ByteRange {
+	start: number;
+	end: number; // inclusive
+}
+
+export class StorageVerificationError extends Error {}
+
+export function createStorage(settings: StorageSettings) {
+	// Without WHEN_REQUIRED the SDK frames stream bodies with a checksum trailer that some
+	// S3-compatible servers store inside the object.
+	const client = new S3Client({
+		endpoint: settings.endpoint,
+		region: settings.region,
+		forcePathStyle: true,
+		credentials: { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey },
+		requestChecksumCalculation: 'WHEN_REQUIRED',
+		responseChecksumValidation: 'WHEN_REQUIRED'
+	});
+	const Bucket = settings.bucket;
+
+	/** Streams a body of unknown length into the bucket, then checks what the bucket holds. */
+	async function put(key: string, body: Readable, contentType = 'application/octet-stream') {
+		const hash = createHash('sha256');
+		let size = 0;
+		const counter = new Transform({
+			transform(chunk: Buffer, _encoding, done) {
+				hash.update(chunk);
+				size += chunk.length;
+				done(null, chunk);
+			}
+		});
+		const passThrough = new PassThrough();
+		const upload = new Upload({
+			client,
+			params: { Bucket, Key: key, Body: passThrough, ContentType: contentType },
+			queueSize: 2,
+			partSize: 8 * 1024 * 1024
+		});
+		await Promise.all([pipeline(body, counter, passThrough), upload.done()]);
+		const stored: StoredObject = { key, size, sha256: hash.digest('hex') };
+		await verify(stored);
+		return stored;
+	}
+
+	async function verify(expected: StoredObject) {
+		const head = await client.send(new HeadObjectCommand({ Bucket, Key: expected.key }));
+		if (head.ContentLength !== expected.size) {
+			throw new StorageVerificationError(
+				`Stored ${head.ContentLength} bytes for ${expected.key}, sent ${expected.size}`
+			);
+		}
+		const hash = createHash('sha256');
+		const { body } = await get(expected.key);
+		for await (const chunk of body) hash.update(chunk as Buffer);
+		const sha256 = hash.digest('hex');
+		if (sha256 !== expected.sha256) {
+			throw new StorageVerificationError(
+				`Stored object ${expected.key} differs from what was sent`
+			);
+		}
+	}
+
+	async function get(key: string, range?: ByteRange) {
+		const result = await client.send(
+			new GetObjectCommand({
+				Bucket,
+				Key: key,
+				Range: range ? `bytes=${range.start}-${range.end}` : undefined
+			})
+		);
+		return {
+			body: result.Body as Readable,
+			size: result.ContentLength ?? 0,
+			contentRange: result.ContentRange,
+			contentType: result.ContentType
+		};
+	}
+
+	async function size(key: string): Promise<number | null> {
+		try {
+			const head = await client.send(new HeadObjectCommand({ Bucket, Key: key }));
+			return head.ContentLength ?? 0;
+		} catch (err) {
+			if ((err as { name?: string }).name === 'NotFound') return null;
+			throw err;
+		}
+	}
+
+	async function remove(key: string) {
+		await client.send(new DeleteObjectCommand({ Bucket, Key: key }));
+	}
+
+	return { put, get, size, remove, verify, bucket: Bucket, client };
+}
+
+export type Storage = ReturnType<typeof createStorage>;
+
+/**
+ * Parses an HTTP Range header for one range of a resource of `size` bytes.
+ * Returns null for no header, 'unsatisfiable' for a range outside the resource.
+ */
+export function parseRange(
+	header: string | null,
+	size: number
+): ByteRange | null | 'unsatisfiable' {
+	if (!header) return null;
+	const match = /^bytes=(\d*)-(\d*)$/.exec(header.trim());
+	if (!match || (match[1] === '' && match[2] === '')) return null;
+	let start: number;
+	let end: number;
+	if (match[1] === '') {
+		const suffix = Number(match[2]);
+		if (suffix === 0) return 'unsatisfiable';
+		start = Math.max(0, size - suffix);
+		end = size - 1;
+	} else {
+		start = Number(match[1]);
+		end = match[2] === '' ? size - 1 : Math.min(Number(match[2]), size - 1);
+	}
+	if (start >= size || start > end) return 'unsatisfiable';
+	return { start, end };
+}
+
+export { Readable };

@@ -1,0 +1,46 @@
+import { mkdirSync } from 'node:fs';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { findChromium } from './chromium.js';
+
+export const artifactsDir = 'test-results/screenshots';
+
+export async function launchBrowser(): Promise<Browser> {
+	const executablePath = findChromium();
+	if (!executablePath) throw new Error('No Chromium: apt-get install -y chromium');
+	mkdirSync(artifactsDir, { recursive: true });
+	return chromium.launch({
+		executablePath,
+		args: [
+			'--headless',
+			'--no-sandbox',
+			'--disable-gpu',
+			'--disable-quic',
+			'--no-first-run',
+			'--disable-background-networking',
+			'--disable-component-update',
+			'--disable-sync'
+		]
+	});
+}
+
+/** Records every request that leaves the app's own address, so a test can assert there are none. */
+export function watchOutsideRequests(page: Page, baseUrl: string): string[] {
+	const origin = new URL(baseUrl).origin;
+	const outside: string[] = [];
+	page.on('request', (request) => {
+		const url = request.url();
+		if (
+			!url.startsWith(origin) &&
+			!url.startsWith('data:') &&
+			!url.startsWith('blob:') &&
+			url !== 'about:srcdoc'
+		) {
+			outside.push(url);
+		}
+	});
+	return outside;
+}
+
+export async function screenshot(page: Page, name: string) {
+	await page.screenshot({ path: `${artifactsDir}/${name}.png`, fullPage: true });
+}
