@@ -74,6 +74,9 @@ function formatThread(t: ThreadSpec, sep: '.' | ','): string {
 export function formatCallout(spec: CalloutSpec): string {
 	const { units, decimalSeparator: sep } = spec;
 	const value = (v: WrittenValue) => formatWrittenValue(v, units, sep);
+	// A whole inch before a slash would read as a fraction (2/1), so the slash gets spaces.
+	const slash = (v: WrittenValue) =>
+		units === 'in' && v.places === 0 && !v.fraction ? ' / ' : '/';
 	let text = spec.quantity !== null ? `${spec.quantity}X ` : '';
 	const symbol = spec.symbol ? SYMBOLS[spec.symbol] : '';
 	if (spec.kind === 'basic' && spec.nominal) {
@@ -92,14 +95,17 @@ export function formatCallout(spec: CalloutSpec): string {
 			switch (t.type) {
 				case 'limits':
 					numbers = t.upperFirst
-						? `${value(t.upper)}/${value(t.lower)}`
+						? value(t.upper) + slash(t.upper) + value(t.lower)
 						: `${value(t.lower)}-${value(t.upper)}`;
 					break;
 				case 'bilateral':
 					numbers = '±' + value(t.deviation);
 					break;
 				case 'deviations':
-					numbers = `${formatDeviation(t.upper, true, units, sep)}/${formatDeviation(t.lower, false, units, sep)}`;
+					numbers =
+						formatDeviation(t.upper, true, units, sep) +
+						slash(t.upper) +
+						formatDeviation(t.lower, false, units, sep);
 					break;
 				case 'single':
 					numbers = t.limit === 'min' ? 'MIN' : 'MAX';
