@@ -2,3 +2,43 @@ export * from './decimal';
 export * from './callout-types';
 export { parseCallout, calloutLimits } from './callout';
 export { formatCallout, formatWrittenValue } from './callout-format';
+export {
+	isoLimits,
+	isoFit,
+	standardTolerance,
+	parseIsoCode,
+	parseGrade,
+	classifyFit,
+	SHAFT_POSITIONS,
+	HOLE_POSITIONS
+} from './iso286';
+export type {
+	IsoLimits,
+	IsoLimitsResult,
+	IsoFit,
+	FitClassification,
+	Grade,
+	NotDefined
+} from './iso286';
+export {
+	generalLinearTolerance,
+	brokenEdgeTolerance,
+	angularTolerance,
+	generalStraightnessFlatness,
+	generalPerpendicularity,
+	generalSymmetry,
+	generalCircularRunout,
+	ISO_2768_2_STATUS
+} from './iso2768';
+export type {
+	LinearClass,
+	GeometricClass,
+	GeneralLinear,
+	GeneralGeometric,
+	GeneralAngular,
+	NotCovered
+} from './iso2768';
+export { titleBlockTolerance, titleBlockAngle } from './title-block';
+export type { DecimalPlacesTolerance, TitleBlockTolerance, TitleBlockAngle } from './title-block';
+export { ansiFit, ANSI_FIT_CLASSES } from './ansi-fits';
+export type { AnsiFit, AnsiFitClass, AnsiMember } from './ansi-fits';
