@@ -255,7 +255,9 @@ function holeFundamental(letter: string, size: Length, grade: Grade): Deviation 
 			}
 			const d = delta(size, grade);
 			if (d === null)
-				return notDefined(`Δ is tabulated for IT3 to IT8 only, so ${letter}${n} has no ES`);
+				return notDefined(
+					`Δ is tabulated for IT3 to IT8 only, so ${letter}${grade.slice(2)} has no ES`
+				);
 			return { value: -ei + d };
 		}
 		if (letter === 'K') return { value: 0 };
