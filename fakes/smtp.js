@@ -30,7 +30,9 @@ export async function startSmtpFake({ port, directory, host = '127.0.0.1' }) {
 						id: randomUUID(),
 						receivedAt: new Date().toISOString(),
 						messageId: mail.messageId ?? null,
-						from: addresses(mail.from)[0] ?? session.envelope.mailFrom?.address ?? '',
+						from:
+							addresses(mail.from)[0] ??
+							(session.envelope.mailFrom ? session.envelope.mailFrom.address : ''),
 						to: session.envelope.rcptTo.map((r) => r.address),
 						headerTo: addresses(mail.to),
 						subject: mail.subject ?? '',

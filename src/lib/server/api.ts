@@ -1,0 +1,49 @@
+import type { Handle } from '@sveltejs/kit';
+
+const codeForStatus: Record<number, string> = {
+	400: 'invalid',
+	401: 'unauthenticated',
+	403: 'forbidden',
+	404: 'not_found',
+	405: 'method_not_allowed',
+	409: 'conflict',
+	413: 'too_large',
+	415: 'unsupported_media_type',
+	422: 'unprocessable',
+	429: 'rate_limited',
+	500: 'internal'
+};
+
+/**
+ * The API's error shape is `{error: {code, message, …}}` (PRODUCT.md §6). Routes throw
+ * SvelteKit's `error(status, {message, code, …})`; this puts the body into that shape.
+ */
+export const apiErrors: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	if (!event.url.pathname.startsWith('/api/') || response.status < 400) return response;
+	if (!response.headers.get('content-type')?.includes('application/json')) {
+		return jsonError(response, { message: (await response.text()) || response.statusText });
+	}
+	const body = (await response.json()) as Record<string, unknown>;
+	if (body && typeof body.error === 'object') return jsonError(response, null, body);
+	return jsonError(response, body);
+};
+
+function jsonError(
+	response: Response,
+	detail: Record<string, unknown> | null,
+	already?: Record<string, unknown>
+) {
+	const headers = new Headers(response.headers);
+	headers.set('content-type', 'application/json');
+	headers.delete('content-length');
+	const { message, code, ...rest } = detail ?? {};
+	const body = already ?? {
+		error: {
+			code: code ?? codeForStatus[response.status] ?? 'error',
+			message: message ?? 'Request failed',
+			...rest
+		}
+	};
+	return new Response(JSON.stringify(body), { status: response.status, headers });
+}

@@ -1,0 +1,177 @@
+import { Auth, raw, skipCSRFCheck, type AuthConfig } from '@auth/core';
+import type { Adapter } from '@auth/core/adapters';
+import { CredentialsSignin } from '@auth/core/errors';
+import { DrizzleAdapter } from '@auth/drizzle-adapter';
+import { SvelteKitAuth } from '@auth/sveltekit';
+import Credentials from '@auth/sveltekit/providers/credentials';
+import Nodemailer from '@auth/sveltekit/providers/nodemailer';
+import { getRequestEvent } from '$app/server';
+import { dev } from '$app/environment';
+import { env } from '$env/dynamic/private';
+import type { RequestEvent } from '@sveltejs/kit';
+import { config as settings } from './config';
+import { startDatabase } from './db';
+import { accounts, users, verificationTokens } from './db/schema';
+import { clearAttempts, isRateLimited, recordAttempt } from './db/queries/attempts';
+import { getUserByEmail, getUserById } from './db/queries/users';
+import { queueMail } from './mail/outbox';
+import { signInLinkMail } from './mail/templates';
+import { nudgeOutbox } from './mail/worker';
+import { verifyPassword } from './passwords';
+import { signInInput } from '$lib/schemas/auth';
+
+export class TooManyAttempts extends CredentialsSignin {
+	code = 'rate_limited';
+}
+export class EmailNotVerified extends CredentialsSignin {
+	code = 'unverified';
+}
+
+export const attemptKeys = (email: string, address: string) => [
+	`account:${email}`,
+	`address:${address}`
+];
+
+function clientAddress() {
+	try {
+		return getRequestEvent().getClientAddress();
+	} catch {
+		return 'unknown';
+	}
+}
+
+let authConfig: AuthConfig | undefined;
+
+async function buildConfig(): Promise<AuthConfig> {
+	if (authConfig) return authConfig;
+	const { db } = await startDatabase();
+	authConfig = {
+		trustHost: dev || env.AUTH_TRUST_HOST === 'true',
+		secret: env.AUTH_SECRET,
+		basePath: '/auth',
+		// Our tables add columns (password hash, session generation) the adapter's types do not know.
+		adapter: (DrizzleAdapter as (db: unknown, schema: unknown) => Adapter)(db, {
+			usersTable: users,
+			accountsTable: accounts,
+			verificationTokensTable: verificationTokens
+		}),
+		// The adapter would switch to database sessions, which Credentials cannot use.
+		session: { strategy: 'jwt', maxAge: 30 * 24 * 60 * 60 },
+		pages: { signIn: '/signin', verifyRequest: '/signin?sent=1', error: '/signin' },
+		providers: [
+			Credentials({
+				credentials: { email: {}, password: {} },
+				async authorize(credentials) {
+					const parsed = signInInput.safeParse(credentials);
+					if (!parsed.success) return null;
+					const { email, password } = parsed.data;
+					const keys = attemptKeys(email, clientAddress());
+					if (await isRateLimited(db, 'sign-in', keys)) throw new TooManyAttempts();
+					const user = await getUserByEmail(db, email);
+					if (!(await verifyPassword(password, user?.passwordHash))) {
+						await recordAttempt(db, 'sign-in', keys);
+						return null;
+					}
+					if (!user!.emailVerified) throw new EmailNotVerified();
+					await clearAttempts(db, 'sign-in', `account:${email}`);
+					return { id: user!.id, name: user!.name, email: user!.email };
+				}
+			}),
+			Nodemailer({
+				server: settings.smtpUrl,
+				from: settings.mailFrom,
+				maxAge: 24 * 60 * 60,
+				// Our outbox sends it (and retries); nothing goes to an address without an account,
+				// while the page says the same thing either way.
+				async sendVerificationRequest({ identifier, url }) {
+					const user = await getUserByEmail(db, identifier);
+					if (!user) return;
+					await queueMail(db, signInLinkMail(user.email, url));
+					nudgeOutbox();
+				}
+			})
+		],
+		callbacks: {
+			async jwt({ token, user }) {
+				if (user?.id) {
+					const row = await getUserById(db, user.id);
+					token.uid = user.id;
+					token.gen = row?.sessionGeneration ?? 0;
+				}
+				return token;
+			},
+			async session({ session, token }) {
+				if (typeof token.uid === 'string') {
+					session.user.id = token.uid;
+					(session as { generation?: number }).generation = Number(token.gen ?? 0);
+				}
+				return session;
+			}
+		}
+	};
+	return authConfig;
+}
+
+export const { handle: authHandle } = SvelteKitAuth(async () => buildConfig());
+
+export type SignInOutcome =
+	{ ok: true } | { ok: false; code: 'invalid' | 'rate_limited' | 'unverified' };
+
+/** Runs an Auth.js sign-in for our own form actions, turning its errors into outcomes. */
+export async function signInWith(
+	event: RequestEvent,
+	provider: 'credentials' | 'nodemailer',
+	fields: Record<string, string>
+): Promise<SignInOutcome> {
+	const authConfig = await buildConfig();
+	const action = provider === 'credentials' ? 'callback' : 'signin';
+	const url = new URL(`/auth/${action}/${provider}`, event.url);
+	const headers = new Headers(event.request.headers);
+	headers.set('Content-Type', 'application/x-www-form-urlencoded');
+	// Our form actions already passed SvelteKit's same-origin check; Auth.js's own endpoints
+	// keep their CSRF token check.
+	const body = new URLSearchParams({ ...fields, callbackUrl: '/' });
+	try {
+		const response = await Auth(new Request(url, { method: 'POST', headers, body }), {
+			...authConfig,
+			raw,
+			skipCSRFCheck
+		});
+		for (const cookie of response?.cookies ?? []) {
+			event.cookies.set(cookie.name, cookie.value, { path: '/', ...cookie.options });
+		}
+		if (response.redirect?.includes('error=')) return { ok: false, code: 'invalid' };
+		return { ok: true };
+	} catch (err) {
+		const code = (err as { code?: string }).code;
+		if (code === 'rate_limited' || code === 'unverified') return { ok: false, code };
+		if (err instanceof CredentialsSignin || (err as Error).name === 'CredentialsSignin') {
+			return { ok: false, code: 'invalid' };
+		}
+		throw err;
+	}
+}
+
+export function signOutHere(event: RequestEvent) {
+	for (const name of event.cookies.getAll().map((c) => c.name)) {
+		if (name.includes('authjs.session-token')) event.cookies.delete(name, { path: '/' });
+	}
+}
+
+export interface CurrentUser {
+	id: string;
+	name: string | null;
+	email: string;
+}
+
+/** The signed-in user, or null when the token was revoked (generation bumped) or the user is gone. */
+export async function userFromSession(event: RequestEvent): Promise<CurrentUser | null> {
+	const session = (await event.locals.auth()) as
+		({ user?: { id?: string }; generation?: number } & object) | null;
+	const id = session?.user?.id;
+	if (!id) return null;
+	const { db } = await startDatabase();
+	const user = await getUserById(db, id);
+	if (!user || user.sessionGeneration !== (session.generation ?? -1)) return null;
+	return { id: user.id, name: user.name, email: user.email };
+}

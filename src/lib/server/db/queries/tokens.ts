@@ -1,0 +1,49 @@
+import { createHash, randomBytes } from 'node:crypto';
+import { and, eq, isNull } from 'drizzle-orm';
+import type { Db } from '../connect';
+import { userTokens } from '../schema';
+
+type Purpose = (typeof userTokens.$inferInsert)['purpose'];
+
+const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
+
+/** A fresh random secret for the link; only its hash is stored. */
+export async function issueUserToken(db: Db, userId: string, purpose: Purpose, ttlMs: number) {
+	const token = randomBytes(32).toString('base64url');
+	await db.insert(userTokens).values({
+		userId,
+		purpose,
+		tokenHash: hashToken(token),
+		expiresAt: new Date(Date.now() + ttlMs)
+	});
+	return token;
+}
+
+export type ConsumeResult =
+	{ ok: true; userId: string } | { ok: false; reason: 'invalid' | 'expired' };
+
+/**
+ * Uses a token once. Looking it up by its hash means no secret is compared byte by byte, and
+ * the conditional update makes a second use fail even when two requests race.
+ */
+export async function consumeUserToken(
+	db: Db,
+	token: string,
+	purpose: Purpose,
+	now = new Date()
+): Promise<ConsumeResult> {
+	const tokenHash = hashToken(token);
+	const [row] = await db
+		.select()
+		.from(userTokens)
+		.where(and(eq(userTokens.tokenHash, tokenHash), eq(userTokens.purpose, purpose)));
+	if (!row || row.usedAt) return { ok: false, reason: 'invalid' };
+	if (row.expiresAt <= now) return { ok: false, reason: 'expired' };
+	const used = await db
+		.update(userTokens)
+		.set({ usedAt: now })
+		.where(and(eq(userTokens.id, row.id), isNull(userTokens.usedAt)))
+		.returning({ id: userTokens.id });
+	if (used.length === 0) return { ok: false, reason: 'invalid' };
+	return { ok: true, userId: row.userId };
+}

@@ -1,0 +1,14 @@
+import bcrypt from 'bcryptjs';
+
+const cost = 11;
+
+export function hashPassword(password: string) {
+	return bcrypt.hash(password, cost);
+}
+
+/** bcrypt's compare is constant-time in the hash; a missing hash still costs one compare. */
+export async function verifyPassword(password: string, hash: string | null | undefined) {
+	const against = hash ?? '$2b$11$C6UzMDM.H6dfI/f/IKxGhuHqh6M3uY1/hI7yq3cCzhFhVPvAjmsWS';
+	const ok = await bcrypt.compare(password, against);
+	return ok && hash != null;
+}

@@ -1,0 +1,46 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { changePasswordInput } from '$lib/schemas/auth';
+import { signInWith, signOutHere } from '$lib/server/auth';
+import { db } from '$lib/server/db';
+import { endAllSessions, getUserById, setPassword } from '$lib/server/db/queries/users';
+import { parseForm } from '$lib/server/forms';
+import { requireUser } from '$lib/server/guards';
+import { hashPassword, verifyPassword } from '$lib/server/passwords';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async () => {
+	const user = requireUser();
+	return { account: user };
+};
+
+export const actions: Actions = {
+	password: async (event) => {
+		const user = requireUser();
+		const form = await parseForm(event.request, changePasswordInput);
+		if (!form.ok) return form.failure;
+		const row = await getUserById(db, user.id);
+		if (!(await verifyPassword(form.data.currentPassword, row?.passwordHash))) {
+			return fail(400, {
+				values: {},
+				errors: { currentPassword: ['That is not your current password'] } as Record<
+					string,
+					string[]
+				>
+			});
+		}
+		// Other devices are signed out; this one signs in again with the new password.
+		await setPassword(db, user.id, await hashPassword(form.data.password));
+		await signInWith(event, 'credentials', { email: user.email, password: form.data.password });
+		return { changed: true };
+	},
+	everywhere: async (event) => {
+		const user = requireUser();
+		await endAllSessions(db, user.id);
+		signOutHere(event);
+		redirect(303, '/signin');
+	},
+	signout: async (event) => {
+		signOutHere(event);
+		redirect(303, '/signin');
+	}
+};

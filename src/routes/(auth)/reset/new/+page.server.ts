@@ -1,0 +1,34 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { resetInput } from '$lib/schemas/auth';
+import { db } from '$lib/server/db';
+import { consumeUserToken } from '$lib/server/db/queries/tokens';
+import { markEmailVerified, setPassword } from '$lib/server/db/queries/users';
+import { parseForm } from '$lib/server/forms';
+import { hashPassword } from '$lib/server/passwords';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ url }) => ({
+	token: url.searchParams.get('token') ?? ''
+});
+
+export const actions: Actions = {
+	default: async ({ request }) => {
+		const form = await parseForm(request, resetInput, ['token']);
+		if (!form.ok) return form.failure;
+		const used = await consumeUserToken(db, form.data.token, 'reset-password');
+		if (!used.ok) {
+			return fail(400, {
+				values: form.values,
+				errors: {} as Record<string, string[]>,
+				message:
+					used.reason === 'expired'
+						? 'That link has expired. Ask for a new one.'
+						: 'That link is not valid or was already used. Ask for a new one.'
+			});
+		}
+		// Setting the password also ends every session signed in before.
+		await setPassword(db, used.userId, await hashPassword(form.data.password));
+		await markEmailVerified(db, used.userId);
+		redirect(303, '/signin?reset=1');
+	}
+};
