@@ -168,8 +168,8 @@ function simpleGlyph(contours: Contour[]): Buffer {
  */
 export function buildMarksFont(): Uint8Array {
 	const unitsPerEm = 1000;
-	const advance = 840;
-	const [cx, cy, r, stroke, reach] = [420, 330, 230, 70, 370];
+	const advance = 1000;
+	const [cx, cy, r, stroke, reach] = [500, 330, 290, 70, 450];
 	const position = simpleGlyph([
 		circle(cx, cy, r, true),
 		circle(cx, cy, r - stroke, false),

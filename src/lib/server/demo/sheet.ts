@@ -219,10 +219,14 @@ export class Sheet {
 		this.line([c[0], c[1] - r - reach], [c[0], c[1] + r + reach], 'centre');
 	}
 
-	private faceFor(ch: string, bold: boolean): { font: PDFFont; face: 'text' | 'symbols' | 'marks' } {
+	private faceFor(
+		ch: string,
+		bold: boolean
+	): { font: PDFFont; face: 'text' | 'symbols' | 'marks' } {
 		const fonts = this.fonts!;
 		const cp = ch.codePointAt(0)!;
-		if (gdtSymbols.has(ch) && fonts.has('symbols', cp)) return { font: fonts.symbols, face: 'symbols' };
+		if (gdtSymbols.has(ch) && fonts.has('symbols', cp))
+			return { font: fonts.symbols, face: 'symbols' };
 		if (fonts.has('text', cp)) return { font: bold ? fonts.bold : fonts.text, face: 'text' };
 		if (fonts.has('symbols', cp)) return { font: fonts.symbols, face: 'symbols' };
 		if (fonts.has('marks', cp)) return { font: fonts.marks, face: 'marks' };
@@ -233,7 +237,8 @@ export class Sheet {
 	private runs(text: string, bold: boolean) {
 		const runs: { text: string; font: PDFFont; face: string }[] = [];
 		for (const ch of text) {
-			const { font, face } = ch === ' ' ? (runs.at(-1) ?? this.faceFor(ch, bold)) : this.faceFor(ch, bold);
+			const { font, face } =
+				ch === ' ' ? (runs.at(-1) ?? this.faceFor(ch, bold)) : this.faceFor(ch, bold);
 			const last = runs.at(-1);
 			if (last && last.font === font) last.text += ch;
 			else runs.push({ text: ch, font, face });
@@ -242,8 +247,8 @@ export class Sheet {
 	}
 
 	private em(h: number, face: string) {
-		// The symbol face draws its signs a little larger than DejaVu's capitals.
-		return face === 'text' ? h / CAP : (h / CAP) * 0.8;
+		// Noto's circled letters are 0.82 em tall: about a capital's height at this size.
+		return face === 'text' ? h / CAP : (h / CAP) * 0.95;
 	}
 
 	textWidth(text: string, options: TextOptions = {}) {
@@ -263,7 +268,12 @@ export class Sheet {
 		const base = baseline ? at[1] : at[1] + h / 2;
 		for (const run of this.runs(text, bold)) {
 			const size = this.em(h, run.face) * MM;
-			this.page.drawText(run.text, { x: x * MM, y: (this.height - base) * MM, size, font: run.font });
+			this.page.drawText(run.text, {
+				x: x * MM,
+				y: (this.height - base) * MM,
+				size,
+				font: run.font
+			});
 			x += run.font.widthOfTextAtSize(run.text, size) / MM;
 		}
 		return width;
@@ -290,7 +300,11 @@ export class Sheet {
 		const half = ARROW / 6;
 		this.fill(
 			this.path().poly(
-				[tip, [back[0] - uy * half, back[1] + ux * half], [back[0] + uy * half, back[1] - ux * half]],
+				[
+					tip,
+					[back[0] - uy * half, back[1] + ux * half],
+					[back[0] + uy * half, back[1] - ux * half]
+				],
 				true
 			)
 		);
@@ -308,7 +322,13 @@ export class Sheet {
 		direction: 'h' | 'v',
 		at: number,
 		text: string,
-		options: { label?: string; kind?: CalloutKind; shift?: number; basic?: boolean; record?: boolean } = {}
+		options: {
+			label?: string;
+			kind?: CalloutKind;
+			shift?: number;
+			basic?: boolean;
+			record?: boolean;
+		} = {}
 	): Pt {
 		const { shift = 0, kind = 'dimension', basic = false } = options;
 		const h = 3.5;
@@ -331,22 +351,23 @@ export class Sheet {
 			this.line([x2 + sign2, y2], [at + sign2 * 2, y2], 'thin');
 			centre = [at, (y1 + y2) / 2 + shift];
 			const gap = h / 2 + 1.5;
-			if (y2 - y1 > 2 * gap + 2 * ARROW && shift === 0) {
-				this.dimLine([at, y1], [at, centre[1] - gap], [at, centre[1] + gap], [at, y2]);
+			if (centre[1] - gap > y1 + 2 * ARROW && centre[1] + gap < y2 - 2 * ARROW) {
+				this.dimLine([at, y1], [at, y2], [at, centre[1] - gap], [at, centre[1] + gap]);
 			} else {
 				this.dimLine([at, y1], [at, y2]);
 				centre = [at - 1.5 - (text.length * h * 0.8) / 2, centre[1]];
 			}
 		}
 		this.dimensionText(text, centre, { basic });
-		if (options.record !== false) this.record(text, centre, basic ? 'basic' : kind, options.label ?? text);
+		if (options.record !== false)
+			this.record(text, centre, basic ? 'basic' : kind, options.label ?? text);
 		return centre;
 	}
 
 	/** A dimension line from p to q (optionally broken between r and s), arrows at p and q. */
 	private dimLine(p: Pt, q: Pt, r?: Pt, s?: Pt) {
 		const length = Math.hypot(q[0] - p[0], q[1] - p[1]);
-		if (length < 2.5 * ARROW) {
+		if (length < 4 * ARROW) {
 			// Too short for arrows inside: put them outside, pointing in.
 			const [ux, uy] = [(q[0] - p[0]) / length, (q[1] - p[1]) / length];
 			const p2: Pt = [p[0] - ux * (ARROW + 3), p[1] - uy * (ARROW + 3)];
@@ -377,28 +398,29 @@ export class Sheet {
 	 * A leader from an arrowhead at `tip` to a callout centred at `textAt`, ending in a
 	 * short horizontal shoulder under the text's near end.
 	 */
-	leader(tip: Pt, textAt: Pt, text: string, label: string, kind: CalloutKind = 'size') {
+	leader(tip: Pt, textAt: Pt, text: string, label: string, kind: CalloutKind = 'size', extend = 0) {
 		const width = this.text(text, textAt);
 		const toRight = textAt[0] >= tip[0];
 		const near = toRight ? textAt[0] - width / 2 - 1 : textAt[0] + width / 2 + 1;
 		const shoulderY = textAt[1] + 3;
 		const elbow: Pt = [near + (toRight ? -3 : 3), shoulderY];
 		this.line(tip, elbow, 'thin');
-		this.line(elbow, [near + (toRight ? width + 2 : -width - 2), shoulderY], 'thin');
+		const far = near + (toRight ? width + 2 + extend : -width - 2 - extend);
+		this.line(elbow, [far, shoulderY], 'thin');
 		this.arrow(tip, elbow);
 		this.record(text, textAt, kind, label);
 	}
 
 	/** A leader to a hole: the arrow meets the circle on a line through its centre. */
-	holeLeader(c: Pt, r: number, angle: number, textAt: Pt, text: string, label: string) {
+	holeLeader(c: Pt, r: number, angle: number, textAt: Pt, text: string, label: string, extend = 0) {
 		const a = (angle * Math.PI) / 180;
 		const tip: Pt = [c[0] + r * Math.cos(a), c[1] - r * Math.sin(a)];
-		this.leader(tip, textAt, text, label);
+		this.leader(tip, textAt, text, label, 'size', extend);
 	}
 
 	/** Cell widths of a feature control frame, from character counts so dry runs agree. */
 	static frameCells(cells: string[], h = 7) {
-		return cells.map((cell, i) => (i === 0 ? h : Math.max(h, [...cell].length * 2.4 + 3)));
+		return cells.map((cell, i) => (i === 0 ? h : Math.max(h, [...cell].length * 2.7 + 3)));
 	}
 
 	/** A feature control frame centred at `centre`. Returns its left and right x. */
@@ -427,11 +449,7 @@ export class Sheet {
 		const apex: Pt = [foot[0] + ux * 2.4, foot[1] + uy * 2.4];
 		this.fill(
 			this.path().poly(
-				[
-					[foot[0] - uy * 1.6, foot[1] + ux * 1.6],
-					[foot[0] + uy * 1.6, foot[1] - ux * 1.6],
-					apex
-				],
+				[[foot[0] - uy * 1.6, foot[1] + ux * 1.6], [foot[0] + uy * 1.6, foot[1] - ux * 1.6], apex],
 				true
 			)
 		);

@@ -1,0 +1,158 @@
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
+import type { TextItem } from 'pdfjs-dist/types/src/display/api';
+import {
+	demoDrawingPdf,
+	demoDrawings,
+	type DemoDrawingNumber
+} from '../../src/lib/server/demo/drawings';
+
+const outDir = join(process.cwd(), 'test-results', 'demo');
+const standardFontDataUrl =
+	join(process.cwd(), 'node_modules', 'pdfjs-dist', 'standard_fonts') + '/';
+const A3 = [1190.55, 841.89];
+const A4 = [841.89, 595.28];
+
+interface Extracted {
+	pages: number;
+	width: number;
+	height: number;
+	items: { str: string; x: number; y: number }[];
+}
+
+async function extract(bytes: Uint8Array): Promise<Extracted> {
+	// pdf.js takes ownership of the buffer it is given: hand it a copy.
+	const pdf = await getDocument({ data: bytes.slice(), standardFontDataUrl, verbosity: 0 }).promise;
+	try {
+		const page = await pdf.getPage(1);
+		const viewport = page.getViewport({ scale: 1 });
+		const content = await page.getTextContent();
+		const items = (content.items as TextItem[])
+			.filter((item) => 'str' in item)
+			.map((item) => {
+				const [x, y] = viewport.convertToViewportPoint(item.transform[4], item.transform[5]);
+				return { str: item.str, x: x / viewport.width, y: y / viewport.height };
+			});
+		return { pages: pdf.numPages, width: viewport.width, height: viewport.height, items };
+	} finally {
+		await pdf.destroy();
+	}
+}
+
+const normalise = (text: string) => text.replace(/\s+/g, ' ').trim();
+
+describe('demo drawings', () => {
+	const generated = new Map<DemoDrawingNumber, { bytes: Uint8Array; ms: number }>();
+
+	beforeAll(async () => {
+		mkdirSync(outDir, { recursive: true });
+		for (const drawing of demoDrawings) {
+			const started = performance.now();
+			const bytes = await demoDrawingPdf(drawing.number);
+			generated.set(drawing.number, { bytes, ms: performance.now() - started });
+			writeFileSync(join(outDir, `${drawing.number}.pdf`), bytes);
+		}
+	});
+
+	it('describes the four drawings of the scenario', () => {
+		expect(demoDrawings.map((d) => d.number)).toEqual(['KF-1001', 'KF-1002', 'KF-1003', 'KF-2001']);
+		const units = Object.fromEntries(demoDrawings.map((d) => [d.number, [d.units, d.standard]]));
+		expect(units['KF-1001']).toEqual(['mm', 'iso-8015']);
+		expect(units['KF-2001']).toEqual(['in', 'asme-y14.5-2018']);
+		for (const drawing of demoDrawings) {
+			for (const callout of drawing.callouts) {
+				expect(callout.x).toBeGreaterThan(0);
+				expect(callout.x).toBeLessThan(1);
+				expect(callout.y).toBeGreaterThan(0);
+				expect(callout.y).toBeLessThan(1);
+				expect(callout.sheet).toBe(1);
+			}
+		}
+	});
+
+	it('carries the deliberate callouts the rulebook is meant to find', () => {
+		const texts = (number: DemoDrawingNumber) =>
+			demoDrawings.find((d) => d.number === number)!.callouts.map((c) => c.text);
+		expect(texts('KF-1001')).toEqual(
+			expect.arrayContaining(['Ø18 H7', '2X Ø6 H7 Ⓔ', '4X Ø6.6', '⌖ Ø0.2 Ⓜ A B', 'SLOT 8'])
+		);
+		expect(texts('KF-1002')).toEqual(
+			expect.arrayContaining(['Ø12 g6', '⏤ Ø0.02 Ⓜ', 'Ø10 h6 Ⓔ', '3 N9', '90'])
+		);
+		expect(texts('KF-1003')).toEqual(expect.arrayContaining(['Ø12 H7', 'Ø18 p6', '20']));
+		expect(texts('KF-2001')).toEqual(
+			expect.arrayContaining([
+				'Ø.2510-.255',
+				'Ø.2500-.249',
+				'.250 ±.005',
+				'⏥ .010',
+				'PIVOT FIT: RUNNING'
+			])
+		);
+	});
+
+	for (const drawing of demoDrawings) {
+		describe(drawing.number, () => {
+			it('is a small PDF generated quickly', () => {
+				const { bytes, ms } = generated.get(drawing.number)!;
+				expect(new TextDecoder().decode(bytes.subarray(0, 5))).toBe('%PDF-');
+				expect(bytes.length).toBeLessThan(200_000);
+				expect(ms).toBeLessThan(drawing.number === demoDrawings[0].number ? 2000 : 500);
+			});
+
+			it('opens in pdf.js with one sheet of the stated size', async () => {
+				const { pages, width, height } = await extract(generated.get(drawing.number)!.bytes);
+				expect(pages).toBe(1);
+				const expected = drawing.number === 'KF-1003' ? A4 : A3;
+				expect(width).toBeCloseTo(expected[0], 0);
+				expect(height).toBeCloseTo(expected[1], 0);
+				expect(drawing.sheets).toEqual([
+					{ width: expect.closeTo(expected[0], 0), height: expect.closeTo(expected[1], 0) }
+				]);
+			});
+
+			it('has every callout as text, where the list says it is', async () => {
+				const { items } = await extract(generated.get(drawing.number)!.bytes);
+				const all = normalise(items.map((i) => i.str).join(' '));
+				for (const callout of drawing.callouts) {
+					expect(all, callout.text).toContain(normalise(callout.text));
+					// The first piece of the callout sits near the recorded point.
+					const near = items.filter((item) => {
+						const piece = normalise(item.str);
+						// pdf.js may join a note with its number into one item.
+						return (
+							piece.length > 0 &&
+							(normalise(callout.text).startsWith(piece) ||
+								piece.includes(normalise(callout.text))) &&
+							Math.abs(item.x - callout.x) < 0.06 &&
+							Math.abs(item.y - callout.y) < 0.03
+						);
+					});
+					expect(near.length, `${callout.text} near (${callout.x}, ${callout.y})`).toBeGreaterThan(
+						0
+					);
+				}
+			});
+
+			it('has its title block', async () => {
+				const { items } = await extract(generated.get(drawing.number)!.bytes);
+				const all = normalise(items.map((i) => i.str).join(' '));
+				expect(all).toContain('KESTREL FLUIDICS');
+				expect(all).toContain(drawing.number);
+				expect(all).toContain(drawing.title.toUpperCase());
+				expect(all).toContain(drawing.material);
+				expect(all).toContain('1 OF 1');
+				if (drawing.units === 'mm') {
+					expect(all).toContain('ISO 8015');
+					expect(all).toContain('ISO 2768-mK');
+				} else {
+					expect(all).toContain('ASME Y14.5-2018');
+					expect(all).toContain('.XX ± .01');
+					expect(all).toContain('.XXX ± .005');
+				}
+			});
+		});
+	}
+});
