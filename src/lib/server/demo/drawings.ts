@@ -70,7 +70,7 @@ const definitions: Definition[] = [
 			'BREAK SHARP EDGES 0.2 TO 0.4 × 45°',
 			'ANODISE CLEAR AFTER MACHINING'
 		],
-		drawnBy: 'Dana Whitlow',
+		drawnBy: 'Tomas Reyes',
 		draw: drawHousing
 	},
 	{
@@ -91,7 +91,7 @@ const definitions: Definition[] = [
 			'CHAMFER ENDS AND SHOULDERS 0.5 × 45°',
 			'KEYWAY FOR PARALLEL KEY 3 × 3'
 		],
-		drawnBy: 'Dana Whitlow',
+		drawnBy: 'Tomas Reyes',
 		draw: drawShaft
 	},
 	{
@@ -107,7 +107,7 @@ const definitions: Definition[] = [
 		projection: 'first',
 		tolerancing: isoTolerancing,
 		noteLines: ['ISO 8015', 'ISO 2768-mK', 'CHAMFER 0.5 × 45° ALL EDGES'],
-		drawnBy: 'Dana Whitlow',
+		drawnBy: 'Tomas Reyes',
 		draw: drawBushing
 	},
 	{
@@ -136,7 +136,7 @@ const definitions: Definition[] = [
 			'PIVOT PIN IS A BOUGHT-OUT PART, SHOWN FOR THE FIT',
 			'BREAK SHARP EDGES'
 		],
-		drawnBy: 'Dana Whitlow',
+		drawnBy: 'Tomas Reyes',
 		draw: drawBracket
 	}
 ];
