@@ -42,3 +42,47 @@ export { titleBlockTolerance, titleBlockAngle } from './title-block';
 export type { DecimalPlacesTolerance, TitleBlockTolerance, TitleBlockAngle } from './title-block';
 export { ansiFit, ANSI_FIT_CLASSES } from './ansi-fits';
 export type { AnsiFit, AnsiFitClass, AnsiMember } from './ansi-fits';
+export {
+	evaluateFeature,
+	controlBoundaries,
+	bonusTolerance,
+	effectiveStandard,
+	isSurfaceForm,
+	isAsme,
+	exactPlaces
+} from './feature';
+export type {
+	FeatureInput,
+	FeatureResult,
+	FeatureEvaluation,
+	FeatureError,
+	FeatureOverrides,
+	GeometricControl,
+	Characteristic,
+	MaterialModifier,
+	ControlEvaluation,
+	Boundaries,
+	GoverningStandard,
+	GeneralTolerance
+} from './feature';
+export { evaluateFit, FIT_INTENTS } from './fit';
+export type {
+	FitInput,
+	FitResult,
+	FitEvaluation,
+	FitError,
+	FitIntent,
+	FitMemberInput,
+	FastenerInput,
+	FastenerBudget,
+	TemperatureInput
+} from './fit';
+export { adviseFit, PREFERRED_FITS } from './fit-advisor';
+export type {
+	AdviseInput,
+	AdviseResult,
+	FitProposal,
+	FitWanted,
+	PreferredFit
+} from './fit-advisor';
+export { fitDiagramSvg } from './fit-diagram';

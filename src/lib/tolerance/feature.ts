@@ -1,0 +1,639 @@
+/*
+ * One feature of size, evaluated: limits, MMC/LMC, whether the envelope applies and why, gauge
+ * sizes, and the boundaries its geometric tolerances make (PRODUCT.md §4). Exact Lengths
+ * throughout; every value also comes back as a decimal string in the callout's unit.
+ */
+import { calloutLimits, parseCallout } from './callout';
+import type { CalloutSpec, Modifier, Tolerance } from './callout-types';
+import { formatLength, parseDecimal, perUnit, type Length, type Units } from './decimal';
+import { isoLimits } from './iso286';
+import { generalLinearTolerance, type LinearClass } from './iso2768';
+import { titleBlockTolerance, type DecimalPlacesTolerance } from './title-block';
+
+export type GoverningStandard = 'asme-y14.5-2018' | 'asme-y14.5-2009' | 'iso-8015' | 'unstated';
+
+export type GeneralTolerance =
+	| { kind: 'iso2768'; linear: LinearClass; geometric?: 'H' | 'K' | 'L'; envelope?: boolean }
+	| DecimalPlacesTolerance;
+
+export type Characteristic =
+	| 'straightness'
+	| 'flatness'
+	| 'circularity'
+	| 'cylindricity'
+	| 'profile-of-a-line'
+	| 'profile-of-a-surface'
+	| 'angularity'
+	| 'perpendicularity'
+	| 'parallelism'
+	| 'position'
+	| 'concentricity'
+	| 'symmetry'
+	| 'circular-runout'
+	| 'total-runout';
+
+export type MaterialModifier = 'mmc' | 'lmc' | 'rfs';
+
+export interface GeometricControl {
+	characteristic: Characteristic;
+	/** The tolerance value as written, in the feature's unit ('0.02', '.005'). */
+	value: string;
+	diameterZone: boolean;
+	appliesTo: 'surface' | 'median';
+	modifier: MaterialModifier;
+	datums: string[];
+}
+
+export interface FeatureOverrides {
+	envelope?: boolean;
+	independency?: boolean;
+	stock?: boolean;
+	freeState?: boolean;
+}
+
+export interface FeatureInput {
+	callout?: string;
+	spec?: CalloutSpec;
+	/** True for a hole (internal feature). May be left out when an ISO 286 code says it. */
+	internal?: boolean;
+	units: Units;
+	standard: GoverningStandard;
+	generalTolerance?: GeneralTolerance | null;
+	controls?: GeometricControl[];
+	overrides?: FeatureOverrides;
+	/** Drawing or feature notes; "PERFECT FORM AT MMC NOT REQD" lifts Rule #1. */
+	notes?: string;
+	/** An actual mating size, as measured, in the feature's unit. */
+	actual?: string;
+}
+
+export interface FeatureError {
+	ok: false;
+	message: string;
+	/** The character at fault in the callout, or null when the fault is elsewhere. */
+	position: number | null;
+	field: 'callout' | 'internal' | 'controls' | 'actual';
+}
+
+export interface Boundaries {
+	innerBoundary: Length;
+	outerBoundary: Length;
+	virtualCondition: Length | null;
+	resultantCondition: Length | null;
+}
+
+export interface ControlEvaluation {
+	control: GeometricControl;
+	value: Length;
+	/** Null for surface form controls, and when the feature has no two limits. */
+	boundaries: Boundaries | null;
+	note: string | null;
+	/** At the actual mating size, when one is given and lies within the limits. */
+	bonus: { bonus: Length; allowed: Length } | null;
+	text: {
+		value: string;
+		innerBoundary: string | null;
+		outerBoundary: string | null;
+		virtualCondition: string | null;
+		resultantCondition: string | null;
+		bonus: string | null;
+		allowed: string | null;
+	};
+}
+
+export type LimitsSource = 'callout' | 'iso286' | 'general' | 'none';
+
+export interface FeatureEvaluation {
+	ok: true;
+	spec: CalloutSpec;
+	units: Units;
+	internal: boolean;
+	/** Decimal places every value is shown with. */
+	places: number;
+	nominal: Length | null;
+	limitsSource: LimitsSource;
+	/** Where the limits come from, in words (the ISO code, the general tolerance, or why none). */
+	limitsNote: string;
+	upper: Length | null;
+	lower: Length | null;
+	tolerance: Length | null;
+	mmc: Length | null;
+	lmc: Length | null;
+	envelope: { applies: boolean; reason: string };
+	gauges: { go: Length | null; noGo: Length | null; note: string | null };
+	/** The largest form deviation the size tolerance permits. */
+	formDeviation: Length | 'unbounded' | null;
+	controls: ControlEvaluation[];
+	actual: { value: Length; withinLimits: boolean } | null;
+	text: {
+		upper: string | null;
+		lower: string | null;
+		tolerance: string | null;
+		mmc: string | null;
+		lmc: string | null;
+		go: string | null;
+		noGo: string | null;
+		formDeviation: string | null;
+		actual: string | null;
+	};
+}
+
+export type FeatureResult = FeatureEvaluation | FeatureError;
+
+const SURFACE_FORM: readonly Characteristic[] = ['circularity', 'cylindricity'];
+const MEDIAN_CAPABLE: readonly Characteristic[] = ['straightness', 'flatness'];
+const PERFECT_FORM_NOTE = /PERFECT\s+FORM\s+AT\s+MMC\s+NOT\s+REQ(?:UIRE)?D/i;
+const ISO_ONLY_MODIFIERS: readonly Modifier[] = [
+	'envelope',
+	'twoPointSize',
+	'sphereSize',
+	'leastSquaresSize',
+	'maximumInscribedSize',
+	'minimumCircumscribedSize',
+	'circumferenceDiameter',
+	'areaDiameter',
+	'volumeDiameter'
+];
+
+export function isSurfaceForm(control: Pick<GeometricControl, 'characteristic' | 'appliesTo'>) {
+	if (SURFACE_FORM.includes(control.characteristic)) return true;
+	return MEDIAN_CAPABLE.includes(control.characteristic) && control.appliesTo === 'surface';
+}
+
+export function isAsme(standard: GoverningStandard): boolean {
+	return standard === 'asme-y14.5-2018' || standard === 'asme-y14.5-2009';
+}
+
+const MAX_PLACES: Record<Units, number> = { mm: 7, in: 6 };
+
+/** The fewest decimals that show `value` exactly in `units` (capped at the grid). */
+export function exactPlaces(value: Length, units: Units): number {
+	let step = perUnit(units);
+	for (let p = 0; p < MAX_PLACES[units]; p++) {
+		if (value % step === 0) return p;
+		step /= 10;
+	}
+	return MAX_PLACES[units];
+}
+
+export function placesFor(values: (Length | null)[], units: Units, base: number): number {
+	let places = base;
+	for (const v of values) if (v !== null) places = Math.max(places, exactPlaces(v, units));
+	return places;
+}
+
+/** A decimal string in `units` with a leading zero (PRODUCT.md §6). */
+export function formatValue(value: Length | null, units: Units, places: number): string | null {
+	return value === null ? null : formatLength(value, units, places);
+}
+
+function writtenPlaces(spec: CalloutSpec, tolerance: Tolerance | null): number {
+	const nominal = spec.nominal?.places ?? 0;
+	if (tolerance === null) return nominal;
+	switch (tolerance.type) {
+		case 'limits':
+			return Math.max(tolerance.lower.places, tolerance.upper.places);
+		case 'bilateral':
+			return Math.max(nominal, tolerance.deviation.places);
+		case 'deviations':
+			return Math.max(nominal, tolerance.upper.places, tolerance.lower.places);
+		case 'single':
+			return nominal;
+	}
+}
+
+function usesIsoNotation(spec: CalloutSpec, general: GeneralTolerance | null | undefined) {
+	return (
+		spec.toleranceClass !== null ||
+		spec.fit !== null ||
+		spec.decimalSeparator === ',' ||
+		spec.modifiers.some((m) => ISO_ONLY_MODIFIERS.includes(m)) ||
+		general?.kind === 'iso2768'
+	);
+}
+
+/** The governing standard to compute with: an unstated one becomes ISO 8015 when ISO notation shows. */
+export function effectiveStandard(
+	standard: GoverningStandard,
+	spec: CalloutSpec,
+	general: GeneralTolerance | null | undefined
+): { standard: GoverningStandard; assumed: boolean } {
+	if (standard !== 'unstated') return { standard, assumed: false };
+	if (usesIsoNotation(spec, general)) return { standard: 'iso-8015', assumed: true };
+	return { standard: 'unstated', assumed: false };
+}
+
+function envelopeFor(input: FeatureInput, spec: CalloutSpec): { applies: boolean; reason: string } {
+	const o = input.overrides ?? {};
+	const controls = input.controls ?? [];
+	const median = controls.find(
+		(c) => MEDIAN_CAPABLE.includes(c.characteristic) && c.appliesTo === 'median'
+	);
+	const { standard, assumed } = effectiveStandard(input.standard, spec, input.generalTolerance);
+	if (isAsme(standard)) {
+		const edition = standard === 'asme-y14.5-2018' ? 'ASME Y14.5-2018' : 'ASME Y14.5-2009';
+		if (o.stock)
+			return { applies: false, reason: `${edition}: stock as furnished is exempt from Rule #1` };
+		if (o.freeState || spec.modifiers.includes('freeState'))
+			return {
+				applies: false,
+				reason: `${edition}: a non-rigid part in the free state is exempt from Rule #1`
+			};
+		if (o.independency || spec.modifiers.includes('independency'))
+			return { applies: false, reason: `${edition}: the independency symbol lifts Rule #1` };
+		if (input.notes && PERFECT_FORM_NOTE.test(input.notes))
+			return {
+				applies: false,
+				reason: `${edition}: the note PERFECT FORM AT MMC NOT REQD lifts Rule #1`
+			};
+		if (median) {
+			const what =
+				median.characteristic === 'straightness'
+					? 'derived median line straightness'
+					: 'derived median plane flatness';
+			return {
+				applies: false,
+				reason: `${edition}: a ${what} lifts Rule #1 (its virtual condition bounds the feature instead)`
+			};
+		}
+		return {
+			applies: true,
+			reason: `${edition} Rule #1: perfect form at MMC (envelope principle)`
+		};
+	}
+	if (standard === 'iso-8015') {
+		const prefix = assumed
+			? 'no governing standard stated; ISO GPS notation present, so ISO 8015 is assumed: '
+			: 'ISO 8015: ';
+		if (o.independency || spec.modifiers.includes('independency'))
+			return {
+				applies: false,
+				reason: `${prefix}independency (the independency symbol is ASME notation)`
+			};
+		if (spec.modifiers.includes('envelope') || o.envelope)
+			return {
+				applies: true,
+				reason: `${prefix}envelope requirement Ⓔ on the feature (ISO 14405-1)`
+			};
+		const g = input.generalTolerance;
+		if (g?.kind === 'iso2768' && g.envelope)
+			return {
+				applies: true,
+				reason: `${prefix}envelope requirement from the general note ISO 2768-${g.linear}${g.geometric ?? ''}-E`
+			};
+		return {
+			applies: false,
+			reason: `${prefix}independency by default; form is not limited by size without Ⓔ`
+		};
+	}
+	if (o.envelope || spec.modifiers.includes('envelope'))
+		return {
+			applies: true,
+			reason: 'no governing standard stated; the feature asks for the envelope'
+		};
+	return {
+		applies: false,
+		reason:
+			'no governing standard stated: whether the envelope applies is undetermined, so it is not assumed'
+	};
+}
+
+interface Limits {
+	upper: Length | null;
+	lower: Length | null;
+	source: LimitsSource;
+	note: string;
+	places: number;
+}
+
+function classFor(spec: CalloutSpec, internal: boolean) {
+	if (spec.toleranceClass) return spec.toleranceClass;
+	if (spec.fit) return internal ? spec.fit.hole : spec.fit.shaft;
+	return null;
+}
+
+function limitsFor(input: FeatureInput, spec: CalloutSpec, internal: boolean): Limits {
+	const units = spec.units;
+	const isoPlaces = units === 'mm' ? 3 : 4;
+	if (spec.kind === 'basic')
+		return {
+			upper: null,
+			lower: null,
+			source: 'none',
+			note: 'basic dimension: theoretically exact, no tolerance of its own',
+			places: spec.nominal?.places ?? 0
+		};
+	if (spec.kind === 'reference')
+		return {
+			upper: null,
+			lower: null,
+			source: 'none',
+			note: 'reference dimension: information only, no tolerance',
+			places: spec.nominal?.places ?? 0
+		};
+	if (spec.kind === 'thread')
+		return {
+			upper: null,
+			lower: null,
+			source: 'none',
+			note: `thread: its limits come from its tolerance class${spec.thread?.toleranceClass ? ` ${spec.thread.toleranceClass}` : ''}, not from a size tolerance`,
+			places: 0
+		};
+	const stated = calloutLimits(spec);
+	const cls = classFor(spec, internal);
+	if (stated) {
+		const note = cls ? `stated limits (with ${cls.code})` : 'stated on the callout';
+		return { ...stated, source: 'callout', note, places: writtenPlaces(spec, spec.tolerance) };
+	}
+	const nominal = spec.nominal?.value ?? null;
+	if (cls && nominal !== null) {
+		const r = isoLimits(nominal, cls.code);
+		if (!r.ok)
+			return {
+				upper: null,
+				lower: null,
+				source: 'none',
+				note: `no limits: ${cls.code} at this size is ${r.reason}`,
+				places: isoPlaces
+			};
+		return {
+			upper: r.upper,
+			lower: r.lower,
+			source: 'iso286',
+			note: `ISO 286-2 ${r.code}: IT ${formatLength(r.it, units, placesFor([r.it], units, isoPlaces))}`,
+			places: isoPlaces
+		};
+	}
+	if (nominal === null)
+		return {
+			upper: null,
+			lower: null,
+			source: 'none',
+			note: 'no limits: the callout has no size',
+			places: 0
+		};
+	const g = input.generalTolerance;
+	const written = spec.nominal?.places ?? 0;
+	if (!g)
+		return {
+			upper: null,
+			lower: null,
+			source: 'none',
+			note: 'no limits: no tolerance on the callout and no general tolerance on the drawing',
+			places: written
+		};
+	if (g.kind === 'iso2768') {
+		// ISO 2768 is a metric table: read the size in mm, whatever the drawing's unit.
+		const r = generalLinearTolerance(nominal, g.linear);
+		if (!r.ok)
+			return {
+				upper: null,
+				lower: null,
+				source: 'none',
+				note: `no limits: ISO 2768-${g.linear} ${r.reason}`,
+				places: written
+			};
+		const dev = r.deviation;
+		return {
+			upper: nominal + dev,
+			lower: nominal - dev,
+			source: 'general',
+			note: `general tolerance ISO 2768-${g.linear}: ±${r.published} mm`,
+			places: Math.max(written, exactPlaces(dev, units))
+		};
+	}
+	const r = titleBlockTolerance(written, g, units);
+	if (!r.ok)
+		return {
+			upper: null,
+			lower: null,
+			source: 'none',
+			note: `no limits: ${r.reason}`,
+			places: written
+		};
+	return {
+		upper: nominal + r.deviation,
+		lower: nominal - r.deviation,
+		source: 'general',
+		note: `general tolerance from the title block: ${written} places ±${r.published}`,
+		places: Math.max(written, exactPlaces(r.deviation, units))
+	};
+}
+
+function resolveSpec(input: FeatureInput): { spec: CalloutSpec } | FeatureError {
+	if (input.spec) return { spec: input.spec };
+	const feature = input.internal === undefined ? undefined : input.internal ? 'hole' : 'shaft';
+	const parsed = parseCallout(input.callout ?? '', { units: input.units, feature });
+	if (!parsed.ok)
+		return { ok: false, message: parsed.message, position: parsed.position, field: 'callout' };
+	return { spec: parsed.spec };
+}
+
+function internalFor(input: FeatureInput, spec: CalloutSpec): boolean | null {
+	if (input.internal !== undefined) return input.internal;
+	if (spec.toleranceClass) return spec.toleranceClass.feature === 'hole';
+	return null;
+}
+
+/** VC/RC and inner/outer boundaries of one control (PRODUCT.md §4). */
+export function controlBoundaries(
+	internal: boolean,
+	modifier: MaterialModifier,
+	mmc: Length,
+	lmc: Length,
+	t: Length
+): Boundaries {
+	const T = internal ? lmc - mmc : mmc - lmc;
+	if (modifier === 'mmc') {
+		if (internal) {
+			const vc = mmc - t;
+			const rc = lmc + t + T;
+			return { innerBoundary: vc, outerBoundary: rc, virtualCondition: vc, resultantCondition: rc };
+		}
+		const vc = mmc + t;
+		const rc = lmc - t - T;
+		return { innerBoundary: rc, outerBoundary: vc, virtualCondition: vc, resultantCondition: rc };
+	}
+	if (modifier === 'lmc') {
+		if (internal) {
+			const vc = lmc + t;
+			const rc = mmc - t - T;
+			return { innerBoundary: rc, outerBoundary: vc, virtualCondition: vc, resultantCondition: rc };
+		}
+		const vc = lmc - t;
+		const rc = mmc + t + T;
+		return { innerBoundary: vc, outerBoundary: rc, virtualCondition: vc, resultantCondition: rc };
+	}
+	return internal
+		? {
+				innerBoundary: mmc - t,
+				outerBoundary: lmc + t,
+				virtualCondition: null,
+				resultantCondition: null
+			}
+		: {
+				innerBoundary: lmc - t,
+				outerBoundary: mmc + t,
+				virtualCondition: null,
+				resultantCondition: null
+			};
+}
+
+/** Bonus tolerance: the actual mating size's departure from MMC (Ⓜ) or LMC (Ⓛ); none RFS. */
+export function bonusTolerance(
+	internal: boolean,
+	modifier: MaterialModifier,
+	mmc: Length,
+	lmc: Length,
+	actual: Length
+): Length {
+	if (modifier === 'rfs') return 0;
+	const from = modifier === 'mmc' ? mmc : lmc;
+	const departure = internal ? actual - from : from - actual;
+	return (modifier === 'mmc' ? departure : -departure) + 0;
+}
+
+function evaluateControl(
+	control: GeometricControl,
+	t: Length,
+	internal: boolean,
+	mmc: Length | null,
+	lmc: Length | null,
+	actual: { value: Length; withinLimits: boolean } | null,
+	units: Units,
+	places: number
+): ControlEvaluation {
+	let boundaries: Boundaries | null = null;
+	let note: string | null = null;
+	let bonus: ControlEvaluation['bonus'] = null;
+	if (isSurfaceForm(control)) {
+		note = 'a surface form control: it makes no virtual condition or boundary';
+		if (control.modifier !== 'rfs')
+			note += `; ${control.modifier.toUpperCase()} is not allowed on it`;
+	} else if (mmc === null || lmc === null) {
+		note = 'the feature has no two limits of size, so no boundary can be computed';
+	} else {
+		boundaries = controlBoundaries(internal, control.modifier, mmc, lmc, t);
+		if (actual?.withinLimits) {
+			const b = bonusTolerance(internal, control.modifier, mmc, lmc, actual.value);
+			bonus = { bonus: b, allowed: t + b };
+		}
+	}
+	const p = placesFor(
+		[t, boundaries?.innerBoundary ?? null, boundaries?.outerBoundary ?? null, bonus?.bonus ?? null],
+		units,
+		places
+	);
+	const f = (v: Length | null | undefined) => formatValue(v ?? null, units, p);
+	return {
+		control,
+		value: t,
+		boundaries,
+		note,
+		bonus,
+		text: {
+			value: f(t) as string,
+			innerBoundary: f(boundaries?.innerBoundary),
+			outerBoundary: f(boundaries?.outerBoundary),
+			virtualCondition: f(boundaries?.virtualCondition),
+			resultantCondition: f(boundaries?.resultantCondition),
+			bonus: f(bonus?.bonus),
+			allowed: f(bonus?.allowed)
+		}
+	};
+}
+
+/** Everything a checker works out for one feature of size. Never throws. */
+export function evaluateFeature(input: FeatureInput): FeatureResult {
+	const resolved = resolveSpec(input);
+	if ('ok' in resolved) return resolved;
+	const { spec } = resolved;
+	const units = spec.units;
+	const internal = internalFor(input, spec);
+	if (internal === null)
+		return {
+			ok: false,
+			message: 'say whether the feature is internal (a hole) or external (a shaft)',
+			position: null,
+			field: 'internal'
+		};
+	const limits = limitsFor(input, spec, internal);
+	const { upper, lower } = limits;
+	const tolerance = upper !== null && lower !== null ? upper - lower : null;
+	const mmc = internal ? lower : upper;
+	const lmc = internal ? upper : lower;
+	const envelope = envelopeFor(input, spec);
+
+	const controlValues: Length[] = [];
+	for (const [i, c] of (input.controls ?? []).entries()) {
+		const v = parseDecimal(c.value.trim(), units);
+		if (v === null || v.value < 0)
+			return {
+				ok: false,
+				message: `geometric tolerance ${i + 1}: '${c.value}' is not a tolerance value`,
+				position: null,
+				field: 'controls'
+			};
+		controlValues.push(v.value);
+	}
+	let actual: FeatureEvaluation['actual'] = null;
+	if (input.actual !== undefined && input.actual.trim() !== '') {
+		const v = parseDecimal(input.actual.trim(), units);
+		if (v === null || v.value <= 0)
+			return {
+				ok: false,
+				message: `'${input.actual}' is not an actual size`,
+				position: null,
+				field: 'actual'
+			};
+		const withinLimits =
+			(lower === null || v.value >= lower) && (upper === null || v.value <= upper);
+		actual = { value: v.value, withinLimits };
+	}
+
+	const places = placesFor([upper, lower], units, limits.places);
+	const formDeviation = tolerance === null ? null : envelope.applies ? tolerance : 'unbounded';
+	const controls = (input.controls ?? []).map((c, i) =>
+		evaluateControl(c, controlValues[i], internal, mmc, lmc, actual, units, places)
+	);
+	const f = (v: Length | null) => formatValue(v, units, places);
+	return {
+		ok: true,
+		spec,
+		units,
+		internal,
+		places,
+		nominal: spec.nominal?.value ?? null,
+		limitsSource: limits.source,
+		limitsNote: limits.note,
+		upper,
+		lower,
+		tolerance,
+		mmc,
+		lmc,
+		envelope,
+		gauges: {
+			go: mmc,
+			noGo: lmc,
+			note: envelope.applies
+				? null
+				: 'without the envelope the drawing asks for two-point sizes only; a full-form go gauge checks more than it requires'
+		},
+		formDeviation,
+		controls,
+		actual,
+		text: {
+			upper: f(upper),
+			lower: f(lower),
+			tolerance: f(tolerance),
+			mmc: f(mmc),
+			lmc: f(lmc),
+			go: f(mmc),
+			noGo: f(lmc),
+			formDeviation: typeof formDeviation === 'number' ? f(formDeviation) : formDeviation,
+			actual: actual
+				? formatValue(actual.value, units, placesFor([actual.value], units, places))
+				: null
+		}
+	};
+}
