@@ -24,6 +24,18 @@ export default defineConfig({
 			{
 				extends: './vite.config.ts',
 				test: {
+					name: 'app',
+					include: ['tests/app/**/*.test.ts'],
+					environment: 'node',
+					testTimeout: 120_000,
+					hookTimeout: 240_000,
+					fileParallelism: false,
+					globalSetup: ['tests/e2e/global-setup.ts']
+				}
+			},
+			{
+				extends: './vite.config.ts',
+				test: {
 					name: 'e2e',
 					include: ['tests/e2e/**/*.e2e.ts'],
 					environment: 'node',

@@ -1,5 +1,5 @@
 #!/usr/bin/env node
-// `npm test`: unit and integration tests, then the browser tests against the built app.
+// `npm test`: unit and integration tests, then the built app over HTTP and in Chromium.
 import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, rmSync } from 'node:fs';
 import { resolve } from 'node:path';
@@ -26,6 +26,12 @@ function run(args, env = {}) {
 
 let failed = run([...vitest('core'), '--project', 'unit', '--project', 'integration']) !== 0;
 
+// The app and browser tests drive the built app; SKIP_BUILD=1 reuses the last build.
+if (process.env.SKIP_BUILD !== '1' || !existsSync('build/handler.js')) {
+	failed = run(['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'error']) !== 0 || failed;
+}
+failed = run([...vitest('app'), '--project', 'app']) !== 0 || failed;
+
 const chromium = findChromium();
 if (!chromium) {
 	const bar = '!'.repeat(78);
@@ -34,16 +40,12 @@ if (!chromium) {
 	console.log('!!     sudo apt-get install -y chromium');
 	console.log(`!! and run npm test again.\n${bar}\n`);
 } else {
-	// The browser tests drive the built app; SKIP_BUILD=1 reuses the last build.
-	if (process.env.SKIP_BUILD !== '1' || !existsSync('build/handler.js')) {
-		failed ||= run(['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'error']) !== 0;
-	}
-	if (!failed)
-		failed = run([...vitest('browser'), '--project', 'e2e'], { CHROMIUM_PATH: chromium }) !== 0;
+	failed =
+		run([...vitest('browser'), '--project', 'e2e'], { CHROMIUM_PATH: chromium }) !== 0 || failed;
 }
 
 const totals = { passed: 0, failed: 0, skipped: 0 };
-for (const name of ['core', 'browser']) {
+for (const name of ['core', 'app', 'browser']) {
 	const file = `${results}/${name}.json`;
 	if (!existsSync(file)) continue;
 	const report = JSON.parse(readFileSync(file, 'utf8'));

@@ -4,16 +4,18 @@ import { authAttempts } from '../schema';
 
 type Scope = 'sign-in' | 'reset';
 
+/** Failures allowed per window; an address may be shared by a whole office, so it gets more. */
 export const attemptLimits = {
-	'sign-in': { perKey: 10, windowMs: 15 * 60_000 },
-	reset: { perKey: 5, windowMs: 15 * 60_000 }
+	'sign-in': { account: 10, address: 50, windowMs: 15 * 60_000 },
+	reset: { account: 5, address: 30, windowMs: 15 * 60_000 }
 } as const;
 
 /** Keys are `account:<email>` and `address:<ip>`: a limit on either stops the attempt. */
 export async function isRateLimited(db: Db, scope: Scope, keys: string[], now = new Date()) {
-	const { perKey, windowMs } = attemptLimits[scope];
-	const since = new Date(now.getTime() - windowMs);
+	const limits = attemptLimits[scope];
+	const since = new Date(now.getTime() - limits.windowMs);
 	for (const key of keys) {
+		const perKey = key.startsWith('address:') ? limits.address : limits.account;
 		const [row] = await db
 			.select({ count: sql<number>`count(*)::int` })
 			.from(authAttempts)

@@ -1,0 +1,74 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { launchBrowser, screenshot, watchOutsideRequests } from './browser';
+
+const baseUrl = inject('baseUrl');
+let browser: Browser;
+
+beforeAll(async () => {
+	browser = await launchBrowser();
+});
+afterAll(async () => {
+	await browser?.close();
+});
+
+/** Opens the newest caught message to `to` on /dev/mail and follows the link named `linkName`. */
+async function followMailLink(page: Page, to: string, linkName: string) {
+	for (let i = 0; i < 50; i++) {
+		await page.goto(`${baseUrl}/dev/mail`);
+		const item = page.getByRole('button', { name: new RegExp(`to ${to}`) }).first();
+		if (await item.count()) {
+			await item.click();
+			break;
+		}
+		await page.waitForTimeout(300);
+	}
+	const links = page.getByRole('navigation', { name: 'Links in this message' });
+	await links.getByRole('link', { name: linkName, exact: true }).click();
+}
+
+describe('a new user', () => {
+	it('signs up, confirms the address from the caught mail, signs in and out, then uses a link', async () => {
+		const page = await browser.newPage();
+		const outside = watchOutsideRequests(page, baseUrl);
+		const email = `lena-${Date.now()}@example.test`;
+		const password = 'bracket pivot hole';
+
+		await page.goto(`${baseUrl}/signup`);
+		await page.getByLabel('Name').fill('Lena Okafor');
+		await page.getByLabel('E-mail').fill(email);
+		await page.getByLabel('Password').fill('short');
+		await page.getByRole('button', { name: 'Create account' }).click();
+		await page.getByText('Use at least 10 characters').waitFor();
+		await page.getByLabel('Password').fill(password);
+		await page.getByRole('button', { name: 'Create account' }).click();
+		await page.getByText('Check your mail').waitFor();
+
+		await followMailLink(page, email, 'Confirm my address');
+		await page.getByText('Your e-mail address is confirmed').waitFor();
+
+		await page.getByLabel('E-mail').fill(email);
+		await page.getByLabel('Password').fill('wrong password here');
+		await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+		await page.getByRole('alert').getByText('do not match an account').waitFor();
+		await screenshot(page, 'sign-in-error');
+		await page.getByLabel('Password').fill(password);
+		await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+		await page.getByRole('link', { name: 'Lena Okafor' }).waitFor();
+
+		await page.goto(`${baseUrl}/account`);
+		await screenshot(page, 'account');
+		await page.getByRole('main').getByRole('button', { name: 'Sign out', exact: true }).click();
+		await page.waitForURL(`${baseUrl}/signin`);
+		await screenshot(page, 'sign-in');
+
+		await page.getByRole('button', { name: 'E-mail me a sign-in link instead' }).click();
+		await page.getByLabel('E-mail').fill(email);
+		await page.getByRole('button', { name: 'Send me a sign-in link' }).click();
+		await page.getByText('a sign-in link is on its way').waitFor();
+		await followMailLink(page, email, 'Sign in');
+		await page.getByRole('link', { name: 'Lena Okafor' }).waitFor();
+		expect(outside).toEqual([]);
+		await page.close();
+	});
+});
