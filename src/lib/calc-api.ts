@@ -1,0 +1,198 @@
+/*
+ * The calc API's JSON (PRODUCT.md §6): decimal strings in the callout's unit, field names fixed
+ * by the public contract. Shared by the routes and their tests.
+ */
+import { error } from '@sveltejs/kit';
+import type { z } from 'zod';
+import {
+	CAUTION,
+	adviseInput,
+	firstIssue,
+	fitInput,
+	sizeInput,
+	sizeQuery
+} from '$lib/schemas/calc';
+import { formatCallout } from '$lib/tolerance/callout-format';
+import { evaluateFeature, type FeatureEvaluation } from '$lib/tolerance/feature';
+import { evaluateFit, type FitEvaluation } from '$lib/tolerance/fit';
+import { adviseFit } from '$lib/tolerance/fit-advisor';
+
+export function invalid(message: string, extra: Record<string, unknown> = {}): never {
+	const body = { message, code: 'invalid', ...extra };
+	error(400, body);
+}
+
+export function parseOrFail<T extends z.ZodType>(schema: T, data: unknown): z.output<T> {
+	const parsed = schema.safeParse(data);
+	if (!parsed.success) invalid(firstIssue(parsed.error), { issues: parsed.error.issues });
+	return parsed.data;
+}
+
+export async function readJson(request: Request): Promise<unknown> {
+	try {
+		return await request.json();
+	} catch {
+		invalid('the request body must be JSON');
+	}
+}
+
+export function sizeJson(f: FeatureEvaluation) {
+	const controls = f.controls.map((c) => ({
+		characteristic: c.control.characteristic,
+		value: c.text.value,
+		diameterZone: c.control.diameterZone,
+		appliesTo: c.control.appliesTo,
+		modifier: c.control.modifier,
+		datums: c.control.datums,
+		...(c.boundaries
+			? {
+					...(c.control.modifier !== 'rfs'
+						? {
+								virtualCondition: c.text.virtualCondition,
+								resultantCondition: c.text.resultantCondition
+							}
+						: {}),
+					innerBoundary: c.text.innerBoundary,
+					outerBoundary: c.text.outerBoundary
+				}
+			: {}),
+		...(c.bonus ? { bonus: c.text.bonus, allowed: c.text.allowed } : {}),
+		...(c.note ? { note: c.note } : {})
+	}));
+	// With one bounded control the boundaries also sit on the size itself, as the contract names them.
+	const bounded = controls.filter((c) => 'innerBoundary' in c);
+	const first = bounded.length === 1 ? bounded[0] : null;
+	return {
+		callout: formatCallout(f.spec),
+		units: f.units,
+		internal: f.internal,
+		limitsSource: f.limitsSource,
+		limitsNote: f.limitsNote,
+		upper: f.text.upper,
+		lower: f.text.lower,
+		tolerance: f.text.tolerance,
+		mmc: f.text.mmc,
+		lmc: f.text.lmc,
+		envelope: f.envelope,
+		gauges: {
+			go: f.text.go,
+			noGo: f.text.noGo,
+			...(f.gauges.note ? { note: f.gauges.note } : {})
+		},
+		formDeviation: f.text.formDeviation,
+		...(first
+			? {
+					...('virtualCondition' in first
+						? {
+								virtualCondition: first.virtualCondition,
+								resultantCondition: first.resultantCondition
+							}
+						: {}),
+					innerBoundary: first.innerBoundary,
+					outerBoundary: first.outerBoundary
+				}
+			: {}),
+		geometric: controls,
+		...(f.actual ? { actual: { size: f.text.actual, withinLimits: f.actual.withinLimits } } : {})
+	};
+}
+
+export function fitJson(fit: FitEvaluation) {
+	const boundaries = fit.hole.controls.length > 0 || fit.shaft.controls.length > 0;
+	return {
+		units: fit.units,
+		intent: fit.intent,
+		hole: sizeJson(fit.hole),
+		[fit.memberKind]: sizeJson(fit.shaft),
+		minClearance: fit.text.minClearance,
+		maxClearance: fit.text.maxClearance,
+		classification: fit.classification,
+		...(boundaries
+			? {
+					minClearanceAtBoundary: fit.text.minClearanceAtBoundary,
+					maxClearanceAtBoundary: fit.text.maxClearanceAtBoundary,
+					...(fit.boundaryNote ? { boundaryNote: fit.boundaryNote } : {})
+				}
+			: {}),
+		verdict: fit.verdict,
+		checks: fit.checks,
+		...(fit.fastener
+			? {
+					fastenerBudget: {
+						formula: fit.fastener.formula,
+						H: fit.text.fastener?.H,
+						F: fit.text.fastener?.F,
+						available: fit.text.fastener?.available,
+						used: fit.text.fastener?.used,
+						required: fit.text.fastener?.required,
+						ok: fit.fastener.ok,
+						rule: fit.fastener.text
+					}
+				}
+			: {}),
+		...(fit.temperature
+			? {
+					temperature: {
+						operating: fit.temperature.operating,
+						minClearance: fit.text.temperature?.minClearance,
+						maxClearance: fit.text.temperature?.maxClearance,
+						classification: fit.temperature.classification
+					}
+				}
+			: {}),
+		caution: CAUTION
+	};
+}
+
+/** GET query or POST body of /api/v1/calc/size → the size object. Throws 400 on bad input. */
+export function calcSize(data: unknown, from: 'query' | 'body') {
+	const input = parseOrFail(from === 'query' ? sizeQuery : sizeInput, data) as z.output<
+		typeof sizeInput
+	>;
+	const result = evaluateFeature({
+		callout: input.callout,
+		internal: input.feature === undefined ? undefined : input.feature === 'internal',
+		units: input.units,
+		standard: input.standard,
+		generalTolerance: input.generalTolerance,
+		controls: input.geometric,
+		overrides: input.overrides,
+		notes: input.notes,
+		actual: input.actual
+	});
+	if (!result.ok) failed(result.message, result.field, result.position);
+	return { ...sizeJson(result), standard: input.standard, caution: CAUTION };
+}
+
+export function calcFit(data: unknown) {
+	const input = parseOrFail(fitInput, data);
+	const result = evaluateFit({
+		hole: { ...input.hole, controls: input.hole.geometric },
+		shaft: input.shaft ? { ...input.shaft, controls: input.shaft.geometric } : undefined,
+		fastener: input.fastener,
+		units: input.units,
+		standard: input.standard,
+		generalTolerance: input.generalTolerance,
+		intent: input.intent,
+		requiredMinClearance: input.requiredMinClearance,
+		requiredMaxClearance: input.requiredMaxClearance,
+		temperature: input.temperature
+	});
+	if (!result.ok) {
+		const where = result.member === 'fit' ? result.field : `${result.member}.${result.field}`;
+		failed(result.message, where, result.position);
+	}
+	return { ...fitJson(result), standard: input.standard };
+}
+
+export function calcAdvise(data: unknown) {
+	const input = parseOrFail(adviseInput, data);
+	const result = adviseFit(input);
+	if (!result.ok) invalid(result.message, { field: 'basicSize' });
+	const { ok: _ok, ...proposals } = result;
+	return { ...proposals, caution: CAUTION };
+}
+
+function failed(message: string, field: string, position: number | null): never {
+	invalid(message, position === null ? { field } : { field, position });
+}

@@ -1,0 +1,145 @@
+import { z } from 'zod';
+import type { GoverningStandard } from '$lib/tolerance/feature';
+import { FIT_INTENTS, type FitIntent } from '$lib/tolerance/fit';
+
+export const CAUTION =
+	"Results are advisory: the governing standard, your organisation's drawing practice and a qualified checker decide.";
+
+const STANDARDS = ['asme-y14.5-2018', 'asme-y14.5-2009', 'iso-8015', 'unstated'] as const;
+const SHORT: Record<string, GoverningStandard> = { asme: 'asme-y14.5-2018', iso: 'iso-8015' };
+
+export const standard = z
+	.enum([...STANDARDS, 'asme', 'iso'], {
+		error: `standard must be one of ${STANDARDS.join(', ')} (or asme, iso)`
+	})
+	.default('unstated')
+	.transform((s): GoverningStandard => SHORT[s] ?? (s as GoverningStandard));
+
+export const units = z.enum(['mm', 'in'], { error: 'units must be mm or in' }).default('mm');
+
+/** Decimals travel as strings; a JSON number is accepted and read as written. */
+const decimal = z.union([z.string().trim().min(1).max(40), z.number().finite()]).transform(String);
+
+const callout = z
+	.string({ error: 'callout is required' })
+	.trim()
+	.min(1, { error: 'callout is required' })
+	.max(200, { error: 'a callout is at most 200 characters' });
+
+export const geometricControl = z.object({
+	characteristic: z.enum([
+		'straightness',
+		'flatness',
+		'circularity',
+		'cylindricity',
+		'profile-of-a-line',
+		'profile-of-a-surface',
+		'angularity',
+		'perpendicularity',
+		'parallelism',
+		'position',
+		'concentricity',
+		'symmetry',
+		'circular-runout',
+		'total-runout'
+	]),
+	value: decimal,
+	diameterZone: z.boolean().default(false),
+	appliesTo: z.enum(['surface', 'median']).default('median'),
+	modifier: z.enum(['mmc', 'lmc', 'rfs']).default('rfs'),
+	datums: z.array(z.string().trim().min(1).max(3)).max(3).default([])
+});
+
+const geometric = z
+	.union([geometricControl, z.array(geometricControl).max(10)])
+	.transform((g) => (Array.isArray(g) ? g : [g]));
+
+export const generalTolerance = z
+	.discriminatedUnion('kind', [
+		z.object({
+			kind: z.literal('iso2768'),
+			linear: z.enum(['f', 'm', 'c', 'v']),
+			geometric: z.enum(['H', 'K', 'L']).optional(),
+			envelope: z.boolean().optional()
+		}),
+		z.object({
+			kind: z.literal('decimal-places'),
+			byPlaces: z.record(z.string().regex(/^\d$/), z.string().trim().min(1).max(20)),
+			angle: z.string().trim().max(20).optional()
+		})
+	])
+	.nullable();
+
+export const overrides = z
+	.object({
+		envelope: z.boolean().optional(),
+		independency: z.boolean().optional(),
+		stock: z.boolean().optional(),
+		freeState: z.boolean().optional()
+	})
+	.optional();
+
+const feature = z.enum(['internal', 'external']).optional();
+
+export const sizeQuery = z.object({ callout, units, feature, standard });
+
+export const sizeInput = z.object({
+	callout,
+	units,
+	feature,
+	standard,
+	geometric: geometric.optional(),
+	actual: decimal.optional(),
+	generalTolerance: generalTolerance.optional(),
+	overrides,
+	notes: z.string().max(2000).optional()
+});
+
+const member = z.object({
+	callout,
+	units: z.enum(['mm', 'in']).optional(),
+	geometric: geometric.optional(),
+	overrides,
+	notes: z.string().max(2000).optional()
+});
+
+export const fitInput = z
+	.object({
+		hole: member,
+		shaft: member.optional(),
+		fastener: z
+			.object({
+				callout,
+				units: z.enum(['mm', 'in']).optional(),
+				fixedPosition: decimal.optional(),
+				projection: z.object({ P: decimal, D: decimal }).optional()
+			})
+			.optional(),
+		units,
+		standard,
+		generalTolerance: generalTolerance.optional(),
+		intent: z.enum(FIT_INTENTS as unknown as [FitIntent, ...FitIntent[]]).optional(),
+		requiredMinClearance: decimal.optional(),
+		requiredMaxClearance: decimal.optional(),
+		temperature: z
+			.object({ operating: decimal, holeCoefficient: decimal, shaftCoefficient: decimal })
+			.optional()
+	})
+	.refine((f) => (f.shaft === undefined) !== (f.fastener === undefined), {
+		error: 'give either a shaft or a fastener',
+		path: ['shaft']
+	});
+
+export const adviseInput = z.object({
+	basicSize: decimal,
+	units,
+	wanted: z.enum(['running', 'locational-clearance', 'transition', 'interference']).optional(),
+	basis: z.enum(['hole', 'shaft']).optional()
+});
+
+/** The first problem in words, with where it is. */
+export function firstIssue(error: z.ZodError): string {
+	const issue = error.issues[0];
+	const path = issue.path.join('.');
+	return path ? `${path}: ${issue.message}` : issue.message;
+}
