@@ -21,7 +21,8 @@ async function call(handler: Handler, path: string, body?: unknown) {
 		const response = await handler(event(path, body === undefined ? undefined : { body }));
 		return { status: response.status, body: await response.json() };
 	} catch (e) {
-		if (isHttpError(e)) return { status: e.status, body: e.body as Record<string, unknown> };
+		if (isHttpError(e))
+			return { status: e.status, body: e.body as unknown as Record<string, unknown> };
 		throw e;
 	}
 }
