@@ -33,7 +33,7 @@ function text(
 	content: string,
 	opts: { anchor?: string; mono?: boolean; fill?: string; size?: number; weight?: number } = {}
 ) {
-	return `<text x="${x.toFixed(1)}" y="${y.toFixed(1)}" font-family="${opts.mono ? MONO : SANS}" font-size="${opts.size ?? 11}"${opts.weight ? ` font-weight="${opts.weight}"` : ''} fill="${opts.fill ?? INK}" text-anchor="${opts.anchor ?? 'start'}">${escape(content)}</text>`;
+	return `<text x="${x.toFixed(1)}" y="${y.toFixed(1)}" font-family="${opts.mono ? MONO : SANS}" font-size="${opts.size ?? 11}"${opts.weight ? ` font-weight="${opts.weight}"` : ''} fill="${opts.fill ?? INK}" stroke="#ffffff" stroke-width="3" stroke-linejoin="round" paint-order="stroke" text-anchor="${opts.anchor ?? 'start'}">${escape(content)}</text>`;
 }
 
 /** Spreads two edge labels so they never overlap; returns their baselines. */
