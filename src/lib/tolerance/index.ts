@@ -86,3 +86,26 @@ export type {
 	PreferredFit
 } from './fit-advisor';
 export { fitDiagramSvg } from './fit-diagram';
+export {
+	evaluate as evaluateRulebook,
+	scopeOf as rulebookScope,
+	indexRulebook,
+	CATALOGUE as RULE_CATALOGUE,
+	ADVISORY,
+	ruleExplanation,
+	RULE_CODES
+} from './rulebook';
+export type {
+	RuleCode,
+	RuleResult,
+	ResultValue,
+	RuleExplanation,
+	RulebookDrawing,
+	RulebookFeature,
+	RulebookFit,
+	RulebookFastener,
+	RulebookInput,
+	RulebookIndex,
+	RulebookTeam,
+	Severity
+} from './rulebook';

@@ -1,0 +1,364 @@
+/*
+ * The rulebook: every rule of PRODUCT.md §5 over one drawing's features and fits. Pure and
+ * deterministic: results come in input order of their subject (drawing, then features, then
+ * fits) and, within a subject, in rule order. A run limited by `only` gives, for each subject
+ * it judges, exactly the results a full run gives for it.
+ */
+import { ISO_2768_2_STATUS } from '../iso2768';
+import { featureContext, value, type FeatureContext } from './context';
+import { toResult, type Finding, type Subject } from './emit';
+import { featureRules, type Membership } from './feature-rules';
+import { evaluateFitFor, fitRules } from './fit-rules';
+import {
+	RULE_CODES,
+	type RuleResult,
+	type RulebookDrawing,
+	type RulebookFeature,
+	type RulebookFit,
+	type RulebookInput
+} from './types';
+
+const RULE_ORDER = new Map<string, number>(RULE_CODES.map((c, i) => [c, i]));
+
+export interface Scope {
+	drawing: boolean;
+	featureIds: string[];
+	fitIds: string[];
+}
+
+/**
+ * Where each feature and fit sits, which fits reference a feature, and which features define
+ * each datum letter. Build it once per revision and pass it to every incremental run so an edit
+ * costs what it touches; a stale index (features or fits added, removed or moved) is detected
+ * and rebuilt, so it can never change a result.
+ */
+export interface RulebookIndex {
+	featureAt: Map<string, number>;
+	fitAt: Map<string, number>;
+	fitsOf: Map<string, string[]>;
+	datumDefiners: Map<string, string[]>;
+}
+
+export function indexRulebook(
+	features: readonly RulebookFeature[],
+	fits: readonly RulebookFit[]
+): RulebookIndex {
+	return { ...indexFeatures(features), ...indexFits(fits) };
+}
+
+function indexFeatures(features: readonly RulebookFeature[]) {
+	const featureAt = new Map<string, number>();
+	const datumDefiners = new Map<string, string[]>();
+	for (let i = 0; i < features.length; i++) {
+		const f = features[i];
+		featureAt.set(f.id, i);
+		const letter = f.datumFeature?.trim().toUpperCase();
+		if (letter) {
+			const list = datumDefiners.get(letter);
+			if (list) list.push(f.id);
+			else datumDefiners.set(letter, [f.id]);
+		}
+	}
+	return { featureAt, datumDefiners };
+}
+
+function indexFits(fits: readonly RulebookFit[]) {
+	const fitAt = new Map<string, number>();
+	const fitsOf = new Map<string, string[]>();
+	for (let i = 0; i < fits.length; i++) {
+		const fit = fits[i];
+		fitAt.set(fit.id, i);
+		for (const featureId of [fit.holeFeatureId, fit.shaftFeatureId]) {
+			if (!featureId) continue;
+			const list = fitsOf.get(featureId);
+			if (!list) fitsOf.set(featureId, [fit.id]);
+			else if (list[list.length - 1] !== fit.id) list.push(fit.id);
+		}
+	}
+	return { fitAt, fitsOf };
+}
+
+/**
+ * Reads through an index, rebuilding it once if it turns out stale. Without one, it builds
+ * only what the run asks for (a full run never needs the fits' part).
+ */
+class Lookup {
+	private features: readonly RulebookFeature[];
+	private fits: readonly RulebookFit[];
+	private byFeature: Pick<RulebookIndex, 'featureAt' | 'datumDefiners'> | null;
+	private byFit: Pick<RulebookIndex, 'fitAt' | 'fitsOf'> | null;
+	private rebuilt: boolean;
+	constructor(
+		features: readonly RulebookFeature[],
+		fits: readonly RulebookFit[],
+		index: RulebookIndex | undefined
+	) {
+		this.features = features;
+		this.fits = fits;
+		this.rebuilt = !index;
+		this.byFeature = index ?? null;
+		this.byFit = index ?? null;
+	}
+	private featureIndex() {
+		return (this.byFeature ??= indexFeatures(this.features));
+	}
+	private fitIndex() {
+		return (this.byFit ??= indexFits(this.fits));
+	}
+	private rebuild(): boolean {
+		if (this.rebuilt) return false;
+		this.byFeature = indexFeatures(this.features);
+		this.byFit = indexFits(this.fits);
+		this.rebuilt = true;
+		return true;
+	}
+	featurePosition(id: string): number | null {
+		const at = this.featureIndex().featureAt.get(id);
+		if (at !== undefined && this.features[at]?.id === id) return at;
+		return this.rebuild() ? this.featurePosition(id) : null;
+	}
+	fitPosition(id: string): number | null {
+		const at = this.fitIndex().fitAt.get(id);
+		if (at !== undefined && this.fits[at]?.id === id) return at;
+		return this.rebuild() ? this.fitPosition(id) : null;
+	}
+	/** Positions of the fits that reference a feature, in input order. */
+	fitsReferencing(featureId: string): number[] {
+		const out: number[] = [];
+		for (const fitId of this.fitIndex().fitsOf.get(featureId) ?? []) {
+			const at = this.fitPosition(fitId);
+			if (at === null) continue;
+			const fit = this.fits[at];
+			if (fit.holeFeatureId === featureId || fit.shaftFeatureId === featureId) out.push(at);
+			else if (this.rebuild()) return this.fitsReferencing(featureId);
+		}
+		return out.sort((a, b) => a - b);
+	}
+	datumDefined(letter: string): boolean {
+		for (const id of this.featureIndex().datumDefiners.get(letter) ?? []) {
+			const at = this.featurePosition(id);
+			if (at !== null && this.features[at].datumFeature?.trim().toUpperCase() === letter)
+				return true;
+		}
+		return false;
+	}
+}
+
+interface ResolvedScope {
+	drawing: boolean;
+	/** Positions, ascending. */
+	features: number[];
+	fits: number[];
+	/** Per feature position: the positions of the fits it is a member of, ascending. */
+	memberships: Map<number, number[]>;
+}
+
+function resolveScope(input: RulebookInput, lookup: Lookup): ResolvedScope {
+	const { features, fits, only } = input;
+	const memberships = new Map<number, number[]>();
+	if (!only) {
+		const all = features.map((_, i) => i);
+		for (let i = 0; i < fits.length; i++) {
+			for (const id of [fits[i].holeFeatureId, fits[i].shaftFeatureId]) {
+				const at = id ? lookup.featurePosition(id) : null;
+				if (at === null) continue;
+				const list = memberships.get(at);
+				if (!list) memberships.set(at, [i]);
+				else if (list[list.length - 1] !== i) list.push(i);
+			}
+		}
+		return { drawing: true, features: all, fits: fits.map((_, i) => i), memberships };
+	}
+	const touched = new Set<number>();
+	for (const id of only.featureIds ?? []) {
+		const at = lookup.featurePosition(id);
+		if (at !== null) touched.add(at);
+	}
+	const touchedFits = new Set<number>();
+	for (const id of only.fitIds ?? []) {
+		const at = lookup.fitPosition(id);
+		if (at !== null) touchedFits.add(at);
+	}
+	const fitSet = new Set(touchedFits);
+	for (const at of touched) for (const f of lookup.fitsReferencing(features[at].id)) fitSet.add(f);
+	const featureSet = new Set(touched);
+	for (const f of fitSet) {
+		for (const id of [fits[f].holeFeatureId, fits[f].shaftFeatureId]) {
+			const at = id ? lookup.featurePosition(id) : null;
+			if (at !== null) featureSet.add(at);
+		}
+	}
+	for (const at of featureSet) {
+		const id = features[at].id;
+		const list = new Set(lookup.fitsReferencing(id));
+		// A touched fit may have just started referencing the feature.
+		for (const f of touchedFits)
+			if (fits[f].holeFeatureId === id || fits[f].shaftFeatureId === id) list.add(f);
+		if (list.size)
+			memberships.set(
+				at,
+				[...list].sort((a, b) => a - b)
+			);
+	}
+	return {
+		drawing: only.drawing === true,
+		features: [...featureSet].sort((a, b) => a - b),
+		fits: [...fitSet].sort((a, b) => a - b),
+		memberships
+	};
+}
+
+/** Which subjects a run judges: everything, or what `only` names and what depends on it. */
+export function scopeOf(input: RulebookInput): Scope {
+	const scope = resolveScope(input, new Lookup(input.features, input.fits, input.index));
+	return {
+		drawing: scope.drawing,
+		featureIds: scope.features.map((i) => input.features[i].id),
+		fitIds: scope.fits.map((i) => input.fits[i].id)
+	};
+}
+
+function sortFindings(findings: Finding[]): Finding[] {
+	return findings.sort(
+		(a, b) =>
+			(RULE_ORDER.get(a.rule) as number) - (RULE_ORDER.get(b.rule) as number) ||
+			(a.cause < b.cause ? -1 : a.cause > b.cause ? 1 : 0)
+	);
+}
+
+function drawingRules(
+	drawing: RulebookDrawing,
+	contexts: () => Iterable<FeatureContext>
+): Finding[] {
+	const out: Finding[] = [];
+	const g = drawing.generalTolerance;
+	if (drawing.standard === 'unstated') {
+		let iso = g?.kind === 'iso2768';
+		if (!iso) for (const c of contexts()) if (c.assumed) iso = true;
+		out.push({
+			rule: 'ENV-04',
+			cause: iso ? 'iso-assumed' : 'undetermined',
+			message: iso
+				? 'No governing standard is stated; ISO GPS notation is present, so ISO 8015 is assumed.'
+				: 'No governing standard is stated, so whether the envelope applies is undetermined.',
+			values: [
+				value('standard', null, 'unstated'),
+				value('ISO notation', null, iso ? 'present' : 'none')
+			],
+			line: iso
+				? 'standard unstated; ISO notation present → ISO 8015 by invocation (independency)'
+				: 'standard unstated; no ISO notation → envelope (Rule #1) or independency undetermined',
+			fix: 'State the governing standard in the title block.'
+		});
+	}
+	if (g?.kind === 'iso2768' && g.geometric) {
+		out.push({
+			rule: 'DOC-02',
+			cause: 'withdrawn-iso-2768-2',
+			message: `ISO 2768-${g.linear}${g.geometric} cites ISO 2768-2 (class ${g.geometric}), withdrawn in ${ISO_2768_2_STATUS.withdrawn}.`,
+			values: [
+				value(
+					'general tolerance',
+					null,
+					`ISO 2768-${g.linear}${g.geometric}${g.envelope ? '-E' : ''}`
+				),
+				value('replaced by', null, ISO_2768_2_STATUS.replacedBy)
+			],
+			line: `ISO 2768-${g.linear}${g.geometric}: ISO 2768-2 withdrawn ${ISO_2768_2_STATUS.withdrawn}, replaced by ${ISO_2768_2_STATUS.replacedBy}`,
+			fix: `Cite ${ISO_2768_2_STATUS.replacedBy} general geometric specifications, or keep the reference knowingly.`
+		});
+	}
+	if (
+		g?.kind === 'iso2768' &&
+		(drawing.standard === 'asme-y14.5-2018' || drawing.standard === 'asme-y14.5-2009')
+	) {
+		out.push({
+			rule: 'DOC-02',
+			cause: 'iso-general-on-asme',
+			message: 'An ISO 2768 general tolerance on an ASME Y14.5 drawing.',
+			values: [
+				value('general tolerance', null, `ISO 2768-${g.linear}`),
+				value('standard', null, drawing.standard)
+			],
+			line: `ISO 2768-${g.linear} with ${drawing.standard}`,
+			fix: 'State the general tolerance in the system of the drawing.'
+		});
+	}
+	return sortFindings(out);
+}
+
+/** Runs the rulebook. See `scopeOf` for what a run limited by `only` judges. */
+export function evaluate(input: RulebookInput): RuleResult[] {
+	const { drawing, features, fits, team } = input;
+	const lookup = new Lookup(features, fits, input.index);
+	const scope = resolveScope(input, lookup);
+	const drawingLetters = new Set((drawing.datums ?? []).map((d) => d.trim().toUpperCase()));
+	let letterList: string[] | null = null;
+	const datumLetters = {
+		has: (letter: string) => drawingLetters.has(letter) || lookup.datumDefined(letter),
+		list: () => {
+			if (!letterList) {
+				const letters = new Set(drawingLetters);
+				for (const f of features)
+					if (f.datumFeature) letters.add(f.datumFeature.trim().toUpperCase());
+				letterList = [...letters].sort();
+			}
+			return letterList;
+		}
+	};
+
+	const contexts = new Map<number, FeatureContext>();
+	const contextAt = (at: number): FeatureContext => {
+		let c = contexts.get(at);
+		if (!c) contexts.set(at, (c = featureContext(features[at], at, drawing)));
+		return c;
+	};
+
+	const results: RuleResult[] = [];
+	if (scope.drawing) {
+		const all = function* () {
+			for (let i = 0; i < features.length; i++)
+				yield contexts.get(i) ?? featureContext(features[i], i, drawing);
+		};
+		const subject: Subject = { subject: 'drawing', featureId: null, fitId: null };
+		for (const finding of drawingRules(drawing, all))
+			results.push(toResult(finding, subject, team));
+	}
+
+	for (const at of scope.features) {
+		const ctx = contextAt(at);
+		const memberOf: Membership[] = [];
+		for (const f of scope.memberships.get(at) ?? []) {
+			const fit = fits[f];
+			memberOf.push({ fit, role: fit.holeFeatureId === ctx.feature.id ? 'hole' : 'shaft' });
+		}
+		const findings: Finding[] = [];
+		featureRules(ctx, { drawing, team, datumLetters, memberships: memberOf }, findings);
+		const subject: Subject = {
+			subject: 'feature',
+			featureId: ctx.feature.id,
+			fitId: memberOf.length ? memberOf[0].fit.id : null
+		};
+		for (const finding of sortFindings(findings)) results.push(toResult(finding, subject, team));
+		if (memberOf.length) ctx.evaluation = null;
+		else contexts.delete(at);
+	}
+
+	for (const f of scope.fits) {
+		const fit = fits[f];
+		if (!fit.shaftFeatureId && !fit.fastener) continue;
+		const holeAt = lookup.featurePosition(fit.holeFeatureId);
+		const shaftAt = fit.shaftFeatureId ? lookup.featurePosition(fit.shaftFeatureId) : null;
+		if (holeAt === null || (fit.shaftFeatureId && shaftAt === null)) continue;
+		const hole = contextAt(holeAt);
+		const shaft = shaftAt === null ? null : contextAt(shaftAt);
+		if (!hole.ok || (shaft && !shaft.ok)) continue;
+		const r = evaluateFitFor(fit, hole, shaft, drawing);
+		if (!r.ok) continue;
+		const findings: Finding[] = [];
+		fitRules(fit, r, hole, shaft, findings);
+		const subject: Subject = { subject: 'fit', featureId: fit.holeFeatureId, fitId: fit.id };
+		for (const finding of sortFindings(findings)) results.push(toResult(finding, subject, team));
+	}
+	return results;
+}
