@@ -6,7 +6,17 @@ import ts from 'typescript-eslint';
 import svelteConfig from './svelte.config.js';
 
 export default ts.config(
-	{ ignores: ['build/', '.svelte-kit/', 'data/', 'test-results/', 'drizzle/', 'node_modules/'] },
+	{
+		ignores: [
+			'build/',
+			'.builds/',
+			'.svelte-kit/',
+			'data/',
+			'test-results/',
+			'drizzle/',
+			'node_modules/'
+		]
+	},
 	js.configs.recommended,
 	...ts.configs.recommended,
 	...svelte.configs.recommended,

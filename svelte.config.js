@@ -6,7 +6,12 @@ const config = {
 	preprocess: vitePreprocess(),
 	compilerOptions: { runes: true },
 	kit: {
-		adapter: adapter({ precompress: false }),
+		// BUILD_DIR lets two builds run side by side (e.g. a test run while developing).
+		adapter: adapter({ out: process.env.BUILD_DIR || 'build', precompress: false }),
+		outDir: process.env.BUILD_DIR ? `${process.env.BUILD_DIR}-kit` : '.svelte-kit',
+		// The origin check lives in hooks.server.ts: it must let Bearer-token API clients post
+		// forms and multipart without an Origin header, and keep it for cookie sessions.
+		csrf: { trustedOrigins: ['*'] },
 		csp: {
 			mode: 'auto',
 			directives: {

@@ -49,7 +49,10 @@ const sources = [
 	'vite.config.ts',
 	'package-lock.json'
 ];
-const builtAt = existsSync('build/handler.js') ? statSync('build/handler.js').mtimeMs : 0;
+const buildDir = env.BUILD_DIR || 'build';
+const builtAt = existsSync(`${buildDir}/handler.js`)
+	? statSync(`${buildDir}/handler.js`).mtimeMs
+	: 0;
 if (builtAt === 0 || Math.max(...sources.map(newestMtime)) > builtAt) {
 	say('building the app (sources changed since the last build)…');
 	const build = spawnSync(process.execPath, ['node_modules/vite/bin/vite.js', 'build'], {
@@ -109,7 +112,7 @@ env.AUTH_TRUST_HOST ||= 'true';
 env.DATA_DIR = dataDir;
 env.BODY_SIZE_LIMIT ||= `${Number(env.MAX_UPLOAD_MB || 100) + 1}M`;
 
-const app = spawn(process.execPath, ['build/index.js'], {
+const app = spawn(process.execPath, [`${buildDir}/index.js`], {
 	env,
 	stdio: ['ignore', 'inherit', 'inherit']
 });

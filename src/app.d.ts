@@ -7,6 +7,7 @@ declare global {
 			message: string;
 			errorId?: string;
 			code?: string;
+			[detail: string]: unknown;
 		}
 		interface Locals {
 			/** The signed-in user (session cookie or, on the API, a personal token). */

@@ -1,10 +1,11 @@
-import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
+import { json, text, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { env } from '$env/dynamic/private';
 import { apiErrors } from '$lib/server/api';
 import { authHandle, userFromSession } from '$lib/server/auth';
 import { config } from '$lib/server/config';
-import { startDatabase } from '$lib/server/db';
+import { db, startDatabase } from '$lib/server/db';
+import { userForApiToken } from '$lib/server/db/queries/api-tokens';
 import { demoPassword, demoPeople, seedDemo } from '$lib/server/demo/seed';
 import { startOutboxWorker } from '$lib/server/mail/worker';
 
@@ -29,12 +30,41 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-const currentUser: Handle = async ({ event, resolve }) => {
-	event.locals.user = await userFromSession(event);
+const unsafeMethods = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
+const bearerOf = (request: Request) =>
+	/^Bearer\s+(\S+)$/i.exec(request.headers.get('authorization') ?? '')?.[1] ?? null;
+
+/**
+ * Cross-site protection for cookie sessions (SvelteKit's own check is off, see
+ * svelte.config.js): a state-changing request without a Bearer token must come from our origin.
+ */
+const sameOrigin: Handle = async ({ event, resolve }) => {
+	const { request, url } = event;
+	if (unsafeMethods.has(request.method) && !bearerOf(request)) {
+		const origin = request.headers.get('origin');
+		if (origin !== url.origin) {
+			const message = `Cross-site ${request.method} requests are refused`;
+			return url.pathname.startsWith('/api/') ||
+				request.headers.get('accept') === 'application/json'
+				? json({ error: { code: 'forbidden', message } }, { status: 403 })
+				: text(message, { status: 403 });
+		}
+	}
 	return resolve(event);
 };
 
-export const handle = sequence(securityHeaders, apiErrors, authHandle, currentUser);
+const currentUser: Handle = async ({ event, resolve }) => {
+	const bearer = event.url.pathname.startsWith('/api/') ? bearerOf(event.request) : null;
+	if (bearer) {
+		const user = await userForApiToken(db, bearer);
+		event.locals.user = user ? { id: user.id, name: user.name, email: user.email } : null;
+	} else {
+		event.locals.user = await userFromSession(event);
+	}
+	return resolve(event);
+};
+
+export const handle = sequence(securityHeaders, apiErrors, sameOrigin, authHandle, currentUser);
 
 export const handleError: HandleServerError = ({ error, event, status }) => {
 	const errorId = crypto.randomUUID();

@@ -1,7 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { Client, linkIn, waitForMail } from './client';
-
-const unique = () => `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
+import { Client, linkIn, unique, waitForMail } from './client';
 
 async function signUpAndVerify(client: Client, password = 'pump housing bore 18') {
 	const email = `user-${unique()}@example.test`;

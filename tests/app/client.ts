@@ -68,6 +68,14 @@ export class Client {
 		return result;
 	}
 
+	/** A JSON API call with the session cookie (and the Origin a browser sends). */
+	async api(method: string, path: string, body?: unknown) {
+		return apiCall(method, path, body, {
+			cookie: this.cookieHeader(),
+			origin: new URL(baseUrl).origin
+		});
+	}
+
 	async signIn(email: string, password = demoPassword) {
 		return this.submit('/signin?/password', { email, password });
 	}
@@ -114,4 +122,35 @@ export function linkIn(mail: { text: string }, path: string) {
 	const match = new RegExp(`https?://\\S+${path.replace(/[/?]/g, '\\$&')}\\S*`).exec(mail.text);
 	if (!match) throw new Error(`no ${path} link in: ${mail.text}`);
 	return new URL(match[0]).pathname + new URL(match[0]).search;
+}
+
+/** A JSON API call as a script would make it: a Bearer token and no Origin header. */
+export function bearerCall(token: string, method: string, path: string, body?: unknown) {
+	return apiCall(method, path, body, { authorization: `Bearer ${token}` });
+}
+
+async function apiCall(
+	method: string,
+	path: string,
+	body: unknown,
+	headers: Record<string, string>
+) {
+	return fetch(new URL(`/api/v1${path}`, baseUrl), {
+		method,
+		headers: body === undefined ? headers : { ...headers, 'content-type': 'application/json' },
+		body: body === undefined ? undefined : JSON.stringify(body)
+	});
+}
+
+export const unique = () => `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
+
+/** Signs up and confirms a new account through the real pages and mail, then signs in. */
+export async function newVerifiedUser(client: Client, name = 'Ada Reviewer') {
+	const email = `user-${unique()}@example.test`;
+	const password = 'pump housing bore 18';
+	await client.submit('/signup', { name, email, password });
+	const mail = await waitForMail(email, /Confirm your e-mail/);
+	await client.get(linkIn(mail, '/verify'));
+	await client.signIn(email, password);
+	return { email, password };
 }

@@ -22,7 +22,12 @@ describe('app shell', () => {
 			true
 		);
 		const nav = page.getByRole('navigation', { name: 'Main' });
-		expect(await nav.getByRole('link').allTextContents()).toContain('Symbols');
+		expect(await nav.getByRole('link').allTextContents()).toEqual([
+			'Teams',
+			'Calculator',
+			'Rulebook',
+			'Symbols'
+		]);
 		expect(await page.textContent('footer')).toContain('advisory');
 		await page.keyboard.press('Tab');
 		expect(await page.evaluate(() => document.activeElement?.textContent?.trim())).toBe(

@@ -57,6 +57,13 @@ async function buildConfig(): Promise<AuthConfig> {
 		}),
 		// The adapter would switch to database sessions, which Credentials cannot use.
 		session: { strategy: 'jwt', maxAge: 30 * 24 * 60 * 60 },
+		logger: {
+			// A wrong password is an expected outcome, shown on the form; keep the log for faults.
+			error(err) {
+				if (err instanceof CredentialsSignin || err.name === 'CredentialsSignin') return;
+				console.error('[auth]', err);
+			}
+		},
 		pages: { signIn: '/signin', verifyRequest: '/signin?sent=1', error: '/signin' },
 		providers: [
 			Credentials({

@@ -1,5 +1,7 @@
 import {
 	bigserial,
+	boolean,
+	jsonb,
 	index,
 	integer,
 	pgTable,
@@ -100,5 +102,111 @@ export const outbox = pgTable(
 	(table) => [index('outbox_due_idx').on(table.sentAt, table.nextAttemptAt)]
 );
 
+export const roles = ['admin', 'drafter', 'checker', 'quality'] as const;
+export type Role = (typeof roles)[number];
+
+export const teams = pgTable('teams', {
+	id: uuid('id').primaryKey().defaultRandom(),
+	slug: text('slug').notNull().unique(),
+	name: text('name').notNull(),
+	// Separation of duties: by default nobody approves a revision they submitted or uploaded.
+	allowSelfApproval: boolean('allow_self_approval').notNull().default(false),
+	settings: jsonb('settings').$type<TeamSettings>().notNull().default({}),
+	version: integer('version').notNull().default(1),
+	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+});
+
+export interface TeamSettings {
+	severityOverrides?: Record<string, 'critical' | 'major' | 'minor' | 'note'>;
+	/** The tightest IT grade the team's suppliers hold as a matter of course (rule LIM-06). */
+	capabilityGrade?: number;
+}
+
+export const memberships = pgTable(
+	'memberships',
+	{
+		teamId: uuid('team_id')
+			.notNull()
+			.references(() => teams.id, { onDelete: 'cascade' }),
+		userId: uuid('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		role: text('role', { enum: roles }).notNull(),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(table) => [
+		primaryKey({ columns: [table.teamId, table.userId] }),
+		index('memberships_user_idx').on(table.userId)
+	]
+);
+
+export const invitations = pgTable(
+	'invitations',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		teamId: uuid('team_id')
+			.notNull()
+			.references(() => teams.id, { onDelete: 'cascade' }),
+		email: text('email').notNull(),
+		role: text('role', { enum: roles }).notNull(),
+		tokenHash: text('token_hash').notNull().unique(),
+		invitedBy: uuid('invited_by').references(() => users.id, { onDelete: 'set null' }),
+		expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+		acceptedAt: timestamp('accepted_at', { withTimezone: true }),
+		acceptedBy: uuid('accepted_by').references(() => users.id, { onDelete: 'set null' }),
+		revokedAt: timestamp('revoked_at', { withTimezone: true }),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(table) => [index('invitations_team_idx').on(table.teamId)]
+);
+
+/** Personal API tokens: shown once, kept as a hash. */
+export const apiTokens = pgTable(
+	'api_tokens',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		userId: uuid('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		name: text('name').notNull(),
+		tokenHash: text('token_hash').notNull().unique(),
+		hint: text('hint').notNull(),
+		expiresAt: timestamp('expires_at', { withTimezone: true }),
+		lastUsedAt: timestamp('last_used_at', { withTimezone: true }),
+		revokedAt: timestamp('revoked_at', { withTimezone: true }),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(table) => [index('api_tokens_user_idx').on(table.userId)]
+);
+
+/**
+ * The append-only trail. A trigger (hand-written migration) refuses UPDATE and DELETE; no
+ * foreign keys, so removing a user or a team never rewrites history.
+ */
+export const activity = pgTable(
+	'activity',
+	{
+		id: bigserial('id', { mode: 'number' }).primaryKey(),
+		teamId: uuid('team_id'),
+		actorId: uuid('actor_id'),
+		actorName: text('actor_name'),
+		at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+		entity: text('entity').notNull(),
+		entityId: text('entity_id').notNull(),
+		action: text('action').notNull(),
+		summary: text('summary').notNull(),
+		before: jsonb('before'),
+		after: jsonb('after'),
+		drawingId: uuid('drawing_id')
+	},
+	(table) => [
+		index('activity_team_idx').on(table.teamId, table.id),
+		index('activity_drawing_idx').on(table.drawingId, table.id)
+	]
+);
+
 export type UserRow = typeof users.$inferSelect;
+export type TeamRow = typeof teams.$inferSelect;
+export type MembershipRow = typeof memberships.$inferSelect;
+export type ActivityRow = typeof activity.$inferSelect;
 export type OutboxRow = typeof outbox.$inferSelect;

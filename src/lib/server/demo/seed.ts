@@ -2,7 +2,9 @@ import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import { join } from 'node:path';
 import type { Db } from '../db/connect';
+import { addMember, getTeamBySlug } from '../db/queries/teams';
 import { createUser, getUserByEmail } from '../db/queries/users';
+import { teams } from '../db/schema';
 import { hashPassword } from '../passwords';
 
 export const demoPeople = [
@@ -23,13 +25,26 @@ export function demoPassword(dataDir: string, configured: string | undefined) {
 /** The invented Kestrel Fluidics demo: created once, never overwritten. */
 export async function seedDemo(db: Db, password: string) {
 	const passwordHash = await hashPassword(password);
+	const people = [];
 	for (const person of demoPeople) {
-		if (await getUserByEmail(db, person.email)) continue;
-		await createUser(db, {
-			name: person.name,
-			email: person.email,
-			passwordHash,
-			emailVerified: new Date()
-		});
+		const user =
+			(await getUserByEmail(db, person.email)) ??
+			(await createUser(db, {
+				name: person.name,
+				email: person.email,
+				passwordHash,
+				emailVerified: new Date()
+			}));
+		if (user) people.push({ user, role: person.role });
+	}
+	let team = await getTeamBySlug(db, 'kestrel');
+	if (!team) {
+		[team] = await db
+			.insert(teams)
+			.values({ slug: 'kestrel', name: 'Kestrel Fluidics' })
+			.onConflictDoNothing()
+			.returning();
+		if (!team) return;
+		for (const { user, role } of people) await addMember(db, null, team.id, user, role);
 	}
 }

@@ -56,3 +56,20 @@ export const signInLinkMail = (to: string, url: string) =>
 		url,
 		'The link works once and for 24 hours. If you did not ask for it, ignore this message.'
 	);
+
+export const invitationMail = (
+	to: string,
+	url: string,
+	team: string,
+	inviter: string,
+	role: string
+) =>
+	linkMail(
+		'invitation',
+		to,
+		`${inviter} invited you to ${team} on Checkplate`,
+		`${inviter} invited you to review drawings with ${team} on Checkplate, as ${role}.`,
+		'Accept the invitation',
+		url,
+		'The invitation works once and for 7 days. If you did not expect it, ignore this message.'
+	);

@@ -1,0 +1,26 @@
+import { error } from '@sveltejs/kit';
+import { z } from 'zod';
+
+/** Reads and validates a JSON body; a bad one is a 400 `invalid` naming the fields. */
+export async function readJson<S extends z.ZodType>(
+	request: Request,
+	schema: S
+): Promise<z.infer<S>> {
+	let body: unknown;
+	try {
+		body = await request.json();
+	} catch {
+		error(400, { message: 'The body must be JSON', code: 'invalid' });
+	}
+	const parsed = schema.safeParse(body);
+	if (!parsed.success) {
+		const fields = z.flattenError(parsed.error).fieldErrors as Record<string, string[]>;
+		const first = Object.entries(fields)[0];
+		error(400, {
+			message: first ? `${first[0]}: ${first[1][0]}` : parsed.error.issues[0]?.message,
+			code: 'invalid',
+			fields
+		} as App.Error);
+	}
+	return parsed.data;
+}

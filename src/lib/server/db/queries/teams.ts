@@ -1,0 +1,185 @@
+import { and, asc, eq, sql } from 'drizzle-orm';
+import type { Db } from '../connect';
+import { memberships, teams, users, type Role } from '../schema';
+import { recordActivity } from './activity';
+
+type Actor = { id: string; name: string | null; email: string };
+
+export async function getTeamBySlug(db: Db, slug: string) {
+	const [team] = await db.select().from(teams).where(eq(teams.slug, slug));
+	return team ?? null;
+}
+
+export async function getMembership(db: Db, teamId: string, userId: string) {
+	const [row] = await db
+		.select()
+		.from(memberships)
+		.where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
+	return row ?? null;
+}
+
+export async function listTeamsOf(db: Db, userId: string) {
+	return db
+		.select({ id: teams.id, slug: teams.slug, name: teams.name, role: memberships.role })
+		.from(memberships)
+		.innerJoin(teams, eq(teams.id, memberships.teamId))
+		.where(eq(memberships.userId, userId))
+		.orderBy(asc(teams.name));
+}
+
+export async function listMembers(db: Db, teamId: string) {
+	return db
+		.select({
+			userId: users.id,
+			name: users.name,
+			email: users.email,
+			role: memberships.role,
+			since: memberships.createdAt
+		})
+		.from(memberships)
+		.innerJoin(users, eq(users.id, memberships.userId))
+		.where(eq(memberships.teamId, teamId))
+		.orderBy(asc(users.name), asc(users.email));
+}
+
+export class SlugTaken extends Error {}
+export class LastAdmin extends Error {
+	constructor() {
+		super('A team needs at least one admin: make someone else admin first.');
+	}
+}
+
+/** Creates a team with its creator as admin. */
+export async function createTeam(db: Db, actor: Actor, input: { slug: string; name: string }) {
+	return db.transaction(async (tx) => {
+		const [team] = await tx
+			.insert(teams)
+			.values({ slug: input.slug, name: input.name })
+			.onConflictDoNothing({ target: teams.slug })
+			.returning();
+		if (!team) throw new SlugTaken(`The address ${input.slug} is taken`);
+		await tx.insert(memberships).values({ teamId: team.id, userId: actor.id, role: 'admin' });
+		await recordActivity(tx, {
+			teamId: team.id,
+			actor,
+			entity: 'team',
+			entityId: team.id,
+			action: 'create',
+			summary: `created the team ${team.name}`,
+			after: { slug: team.slug, name: team.name }
+		});
+		return team;
+	});
+}
+
+/** Adds a user, or changes their role if already a member. */
+export async function addMember(
+	db: Db,
+	actor: Actor | null,
+	teamId: string,
+	user: Actor,
+	role: Role
+) {
+	return db.transaction(async (tx) => {
+		const existing = await getMembership(tx, teamId, user.id);
+		if (existing) return { membership: existing, created: false };
+		const [membership] = await tx
+			.insert(memberships)
+			.values({ teamId, userId: user.id, role })
+			.returning();
+		await recordActivity(tx, {
+			teamId,
+			actor,
+			entity: 'membership',
+			entityId: user.id,
+			action: 'add',
+			summary: actor?.id === user.id ? `joined as ${role}` : `added ${user.email} as ${role}`,
+			after: { userId: user.id, email: user.email, role }
+		});
+		return { membership, created: true };
+	});
+}
+
+async function adminCount(db: Db, teamId: string) {
+	const [row] = await db
+		.select({ count: sql<number>`count(*)::int` })
+		.from(memberships)
+		.where(and(eq(memberships.teamId, teamId), eq(memberships.role, 'admin')));
+	return row.count;
+}
+
+export async function changeRole(db: Db, actor: Actor, teamId: string, userId: string, role: Role) {
+	return db.transaction(async (tx) => {
+		// Lock the team row so two demotions cannot both pass the last-admin check.
+		await tx.select().from(teams).where(eq(teams.id, teamId)).for('update');
+		const current = await getMembership(tx, teamId, userId);
+		if (!current) return null;
+		if (current.role === role) return current;
+		if (current.role === 'admin' && (await adminCount(tx, teamId)) <= 1) throw new LastAdmin();
+		const [updated] = await tx
+			.update(memberships)
+			.set({ role })
+			.where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)))
+			.returning();
+		await recordActivity(tx, {
+			teamId,
+			actor,
+			entity: 'membership',
+			entityId: userId,
+			action: 'change-role',
+			summary: `changed a member's role from ${current.role} to ${role}`,
+			before: { role: current.role },
+			after: { role }
+		});
+		return updated;
+	});
+}
+
+export async function removeMember(db: Db, actor: Actor, teamId: string, userId: string) {
+	return db.transaction(async (tx) => {
+		await tx.select().from(teams).where(eq(teams.id, teamId)).for('update');
+		const current = await getMembership(tx, teamId, userId);
+		if (!current) return false;
+		if (current.role === 'admin' && (await adminCount(tx, teamId)) <= 1) throw new LastAdmin();
+		await tx
+			.delete(memberships)
+			.where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
+		await recordActivity(tx, {
+			teamId,
+			actor,
+			entity: 'membership',
+			entityId: userId,
+			action: 'remove',
+			summary: `removed a ${current.role} from the team`,
+			before: { userId, role: current.role }
+		});
+		return true;
+	});
+}
+
+export async function updateTeamSettings(
+	db: Db,
+	actor: Actor,
+	teamId: string,
+	input: { name?: string; allowSelfApproval?: boolean }
+) {
+	return db.transaction(async (tx) => {
+		const [before] = await tx.select().from(teams).where(eq(teams.id, teamId));
+		const [after] = await tx
+			.update(teams)
+			.set({ ...input, version: sql`${teams.version} + 1` })
+			.where(eq(teams.id, teamId))
+			.returning();
+		await recordActivity(tx, {
+			teamId,
+			actor,
+			entity: 'team',
+			entityId: teamId,
+			action: 'update',
+			summary: 'changed the team settings',
+			before: { name: before.name, allowSelfApproval: before.allowSelfApproval },
+			after: { name: after.name, allowSelfApproval: after.allowSelfApproval }
+		});
+		return after;
+	});
+}

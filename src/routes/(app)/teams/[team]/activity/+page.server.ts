@@ -1,0 +1,10 @@
+import { db } from '$lib/server/db';
+import { listTeamActivity } from '$lib/server/db/queries/activity';
+import { requireMember } from '$lib/server/guards';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ params, url }) => {
+	const { team } = await requireMember(params.team, 'viewUnreleased');
+	const before = Number(url.searchParams.get('before')) || undefined;
+	return { entries: await listTeamActivity(db, team.id, { before, limit: 100 }) };
+};
