@@ -303,7 +303,7 @@ describe('fit diagram', () => {
 		for (const t of ['25.021', '25.000', '24.993', '24.980', '0.007', '0.041', 'Hole', 'Shaft'])
 			expect(svg).toContain(t);
 		expect(svg).toContain("'Noto Sans Mono'");
-		expect(svg.match(/<rect /g)?.length).toBe(3);
+		expect(svg.match(/<rect [^>]*width="56"/g)?.length).toBe(2);
 	});
 
 	test('to scale: zone heights are proportional to the tolerances', () => {

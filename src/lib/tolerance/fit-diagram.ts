@@ -33,7 +33,14 @@ function text(
 	content: string,
 	opts: { anchor?: string; mono?: boolean; fill?: string; size?: number; weight?: number } = {}
 ) {
-	return `<text x="${x.toFixed(1)}" y="${y.toFixed(1)}" font-family="${opts.mono ? MONO : SANS}" font-size="${opts.size ?? 11}"${opts.weight ? ` font-weight="${opts.weight}"` : ''} fill="${opts.fill ?? INK}" stroke="#ffffff" stroke-width="3" stroke-linejoin="round" paint-order="stroke" text-anchor="${opts.anchor ?? 'start'}">${escape(content)}</text>`;
+	return `<text x="${x.toFixed(1)}" y="${y.toFixed(1)}" font-family="${opts.mono ? MONO : SANS}" font-size="${opts.size ?? 11}"${opts.weight ? ` font-weight="${opts.weight}"` : ''} fill="${opts.fill ?? INK}" text-anchor="${opts.anchor ?? 'start'}">${escape(content)}</text>`;
+}
+
+/** A limit value on a white backing, so the zero line never runs through it (reads as a minus). */
+function limitLabel(x: number, y: number, content: string, anchor: 'start' | 'end') {
+	const w = content.length * 6.1 + 4;
+	const left = anchor === 'end' ? x - w + 2 : x - 2;
+	return `<rect x="${left.toFixed(1)}" y="${(y - 9).toFixed(1)}" width="${w.toFixed(1)}" height="12" fill="#ffffff"/>${text(x, y, content, { anchor, mono: true, size: 10 })}`;
 }
 
 /** Spreads two edge labels so they never overlap; returns their baselines. */
@@ -110,10 +117,10 @@ export function fitDiagramSvg(fit: FitEvaluation): string {
 		`<line x1="8" y1="${yZero.toFixed(1)}" x2="${WIDTH - 8}" y2="${yZero.toFixed(1)}" stroke="${MUTED}" stroke-width="1" stroke-dasharray="4 3"/>`,
 		zone(HOLE_X, hole.upper, hole.lower, '#e6eef8', ACCENT),
 		zone(SHAFT_X, shaft.upper, shaft.lower, '#eceff3', MUTED),
-		text(HOLE_X - 4, hu, f(hole.upper), { anchor: 'end', mono: true, size: 10 }),
-		text(HOLE_X - 4, hl, f(hole.lower), { anchor: 'end', mono: true, size: 10 }),
-		text(SHAFT_X + ZONE_W + 4, su, f(shaft.upper), { mono: true, size: 10 }),
-		text(SHAFT_X + ZONE_W + 4, sl, f(shaft.lower), { mono: true, size: 10 }),
+		limitLabel(HOLE_X - 4, hu, f(hole.upper), 'end'),
+		limitLabel(HOLE_X - 4, hl, f(hole.lower), 'end'),
+		limitLabel(SHAFT_X + ZONE_W + 4, su, f(shaft.upper), 'start'),
+		limitLabel(SHAFT_X + ZONE_W + 4, sl, f(shaft.lower), 'start'),
 		`<line x1="${HOLE_X + ZONE_W}" y1="${y(hole.lower).toFixed(1)}" x2="${SHAFT_X}" y2="${y(hole.lower).toFixed(1)}" stroke="${LINE}" stroke-width="1"/>`,
 		`<line x1="${HOLE_X + ZONE_W}" y1="${y(hole.upper).toFixed(1)}" x2="${SHAFT_X}" y2="${y(hole.upper).toFixed(1)}" stroke="${LINE}" stroke-width="1"/>`,
 		arrow(SHAFT_X - 26, y(hole.lower), y(shaft.upper), minColour),
