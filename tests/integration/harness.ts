@@ -1,7 +1,9 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { openPglite, type Database } from '../../src/lib/server/db/connect';
+import { randomBytes } from 'node:crypto';
+import pg from 'pg';
+import { openPglite, openPostgres, type Database } from '../../src/lib/server/db/connect';
 import { startS3Fake } from '../../fakes/s3.js';
 import { startSmtpFake } from '../../fakes/smtp.js';
 
@@ -10,9 +12,46 @@ export function tempDir(prefix = 'checkplate-test-') {
 	return { dir, remove: () => rmSync(dir, { recursive: true, force: true }) };
 }
 
-/** A fresh in-memory database with the real migrations applied. */
+/** Which database the integration suite runs on: `TEST_DATABASE=postgres` or PGlite. */
+export const testDatabase = process.env.TEST_DATABASE === 'postgres' ? 'postgres' : 'pglite';
+
+async function onServer(sql: string) {
+	const url = process.env.TEST_POSTGRES_URL;
+	if (!url) {
+		throw new Error(
+			'TEST_DATABASE=postgres needs TEST_POSTGRES_URL: run the tests through ' +
+				'`node scripts/postgres.js <command>`, which starts a server and sets both'
+		);
+	}
+	const admin = new pg.Client({ connectionString: url });
+	await admin.connect();
+	try {
+		await admin.query(sql);
+	} finally {
+		await admin.end();
+	}
+	return url;
+}
+
+/** An empty database of its own on the test server; dropped again on close. */
+export async function freshPostgres(): Promise<Database & { url: string }> {
+	const name = `test_${randomBytes(6).toString('hex')}`;
+	const serverUrl = new URL(await onServer(`CREATE DATABASE ${name}`));
+	serverUrl.pathname = `/${name}`;
+	const database = await openPostgres(serverUrl.href);
+	return {
+		...database,
+		url: serverUrl.href,
+		close: async () => {
+			await database.close();
+			await onServer(`DROP DATABASE ${name} WITH (FORCE)`);
+		}
+	};
+}
+
+/** A fresh database with the real migrations applied: in-memory PGlite, or on the test server. */
 export async function freshDatabase(): Promise<Database> {
-	const database = await openPglite(null);
+	const database = testDatabase === 'postgres' ? await freshPostgres() : await openPglite(null);
 	await database.migrate();
 	return database;
 }

@@ -103,13 +103,30 @@ export async function openPglite(dataDir: string | null): Promise<Database> {
 	};
 }
 
+/** Any fixed number: the key of the advisory lock held while migrating. */
+const migrationLockKey = 7_302_114_551;
+
 export async function openPostgres(url: string): Promise<Database> {
 	const pool = new pg.Pool({ connectionString: url, max: 10 });
 	const db = drizzlePg(pool, { schema }) as unknown as Db;
 	return {
 		db,
 		kind: 'postgres',
-		migrate: (folder = defaultMigrations()) => migratePg(db as never, { migrationsFolder: folder }),
+		// Instances starting together would each apply the same migrations and fail on the
+		// second CREATE: one migrates under the lock, the others wait and find nothing to do.
+		migrate: async (folder = defaultMigrations()) => {
+			const client = await pool.connect();
+			try {
+				await client.query('SELECT pg_advisory_lock($1)', [migrationLockKey]);
+				try {
+					await migratePg(drizzlePg(client, { schema }), { migrationsFolder: folder });
+				} finally {
+					await client.query('SELECT pg_advisory_unlock($1)', [migrationLockKey]);
+				}
+			} finally {
+				client.release();
+			}
+		},
 		close: () => pool.end()
 	};
 }

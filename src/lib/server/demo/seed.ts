@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import type { Db } from '../db/connect';
 import { addMember, getTeamBySlug } from '../db/queries/teams';
 import { createUser, getUserByEmail } from '../db/queries/users';
-import { teams } from '../db/schema';
+import { teams, type Role, type UserRow } from '../db/schema';
 import { hashPassword } from '../passwords';
 
 export const demoPeople = [
@@ -25,8 +25,9 @@ export function demoPassword(dataDir: string, configured: string | undefined) {
 /** The invented Kestrel Fluidics demo: created once, never overwritten. */
 export async function seedDemo(db: Db, password: string) {
 	const passwordHash = await hashPassword(password);
-	const people = [];
+	const people: { user: UserRow; role: Role }[] = [];
 	for (const person of demoPeople) {
+		// Another instance starting at the same time may create the user between our two calls.
 		const user =
 			(await getUserByEmail(db, person.email)) ??
 			(await createUser(db, {
@@ -34,17 +35,19 @@ export async function seedDemo(db: Db, password: string) {
 				email: person.email,
 				passwordHash,
 				emailVerified: new Date()
-			}));
+			})) ??
+			(await getUserByEmail(db, person.email));
 		if (user) people.push({ user, role: person.role });
 	}
-	let team = await getTeamBySlug(db, 'kestrel');
-	if (!team) {
-		[team] = await db
+	if (await getTeamBySlug(db, 'kestrel')) return;
+	// One transaction, so an instance that loses the race never sees the team without members.
+	await db.transaction(async (tx) => {
+		const [team] = await tx
 			.insert(teams)
 			.values({ slug: 'kestrel', name: 'Kestrel Fluidics' })
 			.onConflictDoNothing()
 			.returning();
 		if (!team) return;
-		for (const { user, role } of people) await addMember(db, null, team.id, user, role);
-	}
+		for (const { user, role } of people) await addMember(tx, null, team.id, user, role);
+	});
 }
