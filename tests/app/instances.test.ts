@@ -1,0 +1,183 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { findPostgresBin, startPostgres } from '../../scripts/postgres.js';
+import { freePort } from '../e2e/global-setup';
+import { startFakes, tempDir } from '../integration/harness';
+
+const demoPassword = 'demo-password-for-tests';
+const authSecret = 'one-secret-shared-by-every-instance-0123456789';
+
+interface Instance {
+	url: string;
+	process: ChildProcess;
+	output: () => string;
+}
+
+/** The built app as a deployment runs it (`node build`), on the shared database and services. */
+async function startInstance(env: Record<string, string>): Promise<Instance> {
+	const port = await freePort();
+	const url = `http://127.0.0.1:${port}`;
+	const data = tempDir('checkplate-instance-');
+	const child = spawn(process.execPath, [`${process.env.BUILD_DIR || 'build'}/index.js`], {
+		env: {
+			...process.env,
+			...env,
+			PORT: String(port),
+			HOST: '127.0.0.1',
+			ORIGIN: url,
+			DATA_DIR: data.dir,
+			AUTH_TRUST_HOST: 'true'
+		},
+		stdio: ['ignore', 'pipe', 'pipe']
+	});
+	let output = '';
+	child.stdout!.on('data', (chunk: Buffer) => (output += chunk));
+	child.stderr!.on('data', (chunk: Buffer) => (output += chunk));
+	child.once('exit', data.remove);
+	for (let i = 0; i < 600; i++) {
+		if (child.exitCode !== null) throw new Error(`instance exited:\n${output}`);
+		const ready = await fetch(url).then(
+			(response) => response.ok,
+			() => false
+		);
+		if (ready) return { url, process: child, output: () => output };
+		await new Promise((done) => setTimeout(done, 100));
+	}
+	child.kill('SIGKILL');
+	throw new Error(`instance did not start:\n${output}`);
+}
+
+/** One browser: one cookie jar, whichever instance the load balancer sends it to. */
+class Browser {
+	cookies = new Map<string, string>();
+
+	private keep(response: Response) {
+		for (const line of response.headers.getSetCookie()) {
+			const [pair] = line.split(';');
+			const index = pair.indexOf('=');
+			const value = pair.slice(index + 1).trim();
+			if (value) this.cookies.set(pair.slice(0, index).trim(), value);
+			else this.cookies.delete(pair.slice(0, index).trim());
+		}
+		return response;
+	}
+
+	private headers(instance: Instance) {
+		const cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+		return { cookie, origin: instance.url };
+	}
+
+	async signIn(instance: Instance, email: string) {
+		const response = await fetch(`${instance.url}/signin?/password`, {
+			method: 'POST',
+			headers: {
+				...this.headers(instance),
+				'content-type': 'application/x-www-form-urlencoded',
+				accept: 'application/json',
+				'x-sveltekit-action': 'true'
+			},
+			body: new URLSearchParams({ email, password: demoPassword }),
+			redirect: 'manual'
+		});
+		this.keep(response);
+		return (await response.json()) as { type: string };
+	}
+
+	async api(instance: Instance, method: string, path: string, body?: unknown) {
+		const headers: Record<string, string> = this.headers(instance);
+		if (body !== undefined) headers['content-type'] = 'application/json';
+		const response = await fetch(`${instance.url}/api/v1${path}`, {
+			method,
+			headers,
+			body: body === undefined ? undefined : JSON.stringify(body)
+		});
+		return this.keep(response);
+	}
+}
+
+const postgresBin = findPostgresBin();
+const stops: (() => unknown)[] = [];
+let one: Instance;
+let two: Instance;
+
+describe.skipIf(!postgresBin)('two app instances on one PostgreSQL server', () => {
+	beforeAll(async () => {
+		const server = await startPostgres();
+		stops.push(server.stop);
+		const fakes = await startFakes();
+		stops.push(fakes.stop);
+		const shared = {
+			DATABASE_URL: server.url,
+			AUTH_SECRET: authSecret,
+			DEMO_PASSWORD: demoPassword,
+			S3_ENDPOINT: fakes.storageSettings.endpoint,
+			S3_BUCKET: fakes.storageSettings.bucket,
+			S3_ACCESS_KEY_ID: fakes.storageSettings.accessKeyId,
+			S3_SECRET_ACCESS_KEY: fakes.storageSettings.secretAccessKey,
+			SMTP_URL: fakes.smtpUrl
+		};
+		// Started together: both migrate and seed the same empty database at once.
+		const started = await Promise.allSettled([startInstance(shared), startInstance(shared)]);
+		for (const result of started) {
+			if (result.status === 'fulfilled') stops.push(() => stopInstance(result.value));
+		}
+		for (const result of started) if (result.status === 'rejected') throw result.reason;
+		[one, two] = started.map((result) => (result as PromiseFulfilledResult<Instance>).value);
+	});
+
+	afterAll(async () => {
+		for (const stop of stops.splice(0).reverse()) await stop();
+	});
+
+	it('both start on an empty database and seed the demo team once', async () => {
+		const admin = new Browser();
+		expect((await admin.signIn(one, 'admin@example.test')).type).toBe('redirect');
+		const members = (await (await admin.api(two, 'GET', '/teams/kestrel/members')).json()) as {
+			email: string;
+			role: string;
+		}[];
+		expect(members.map((m) => `${m.email} ${m.role}`).sort()).toEqual([
+			'admin@example.test admin',
+			'checker@example.test checker',
+			'drafter@example.test drafter',
+			'quality@example.test quality'
+		]);
+		expect(one.output() + two.output()).not.toMatch(/error/i);
+	});
+
+	it('recognises on one instance a sign-in made through the other', async () => {
+		const drafter = new Browser();
+		expect((await drafter.api(two, 'GET', '/me')).status).toBe(401);
+		expect((await drafter.signIn(one, 'drafter@example.test')).type).toBe('redirect');
+		const me = await drafter.api(two, 'GET', '/me');
+		expect(me.status).toBe(200);
+		expect((await me.json()).email).toBe('drafter@example.test');
+	});
+
+	it('enforces on one instance a role change made through the other, at once', async () => {
+		const admin = new Browser();
+		const quality = new Browser();
+		await admin.signIn(one, 'admin@example.test');
+		await quality.signIn(two, 'quality@example.test');
+		const members = (await (await admin.api(one, 'GET', '/teams/kestrel/members')).json()) as {
+			userId: string;
+			email: string;
+		}[];
+		const qualityId = members.find((m) => m.email === 'quality@example.test')!.userId;
+		const setRole = (role: string) =>
+			admin.api(one, 'PATCH', `/teams/kestrel/members/${qualityId}`, { role });
+
+		// PRODUCT.md §2: supplier quality may not read the activity trail; a checker may.
+		expect((await quality.api(two, 'GET', '/teams/kestrel/activity')).status).toBe(403);
+		expect((await setRole('checker')).status).toBe(200);
+		expect((await quality.api(two, 'GET', '/teams/kestrel/activity')).status).toBe(200);
+		expect((await setRole('quality')).status).toBe(200);
+		expect((await quality.api(two, 'GET', '/teams/kestrel/activity')).status).toBe(403);
+	});
+});
+
+async function stopInstance(instance: Instance) {
+	if (instance.process.exitCode !== null) return;
+	instance.process.kill('SIGTERM');
+	await new Promise((done) => instance.process.once('exit', done));
+}
