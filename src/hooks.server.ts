@@ -8,13 +8,14 @@ import { db, startDatabase } from '$lib/server/db';
 import { userForApiToken } from '$lib/server/db/queries/api-tokens';
 import { demoPassword, demoPeople, seedDemo } from '$lib/server/demo/seed';
 import { startOutboxWorker } from '$lib/server/mail/worker';
+import { getStorage } from '$lib/server/services';
 
 export const init: ServerInit = async () => {
 	const database = await startDatabase();
 	await database.migrate();
 	if (env.SEED_DEMO !== '0') {
 		const password = demoPassword(config.dataDir, env.DEMO_PASSWORD);
-		await seedDemo(database.db, password);
+		await seedDemo(database.db, password, getStorage(), config.uploadTempDir);
 		console.log(
 			`[checkplate] demo users ${demoPeople.map((p) => p.email).join(', ')} — password: ${password}`
 		);
@@ -34,21 +35,27 @@ const unsafeMethods = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 const bearerOf = (request: Request) =>
 	/^Bearer\s+(\S+)$/i.exec(request.headers.get('authorization') ?? '')?.[1] ?? null;
 
+const formTypes = ['application/x-www-form-urlencoded', 'multipart/form-data', 'text/plain'];
+
 /**
- * Cross-site protection for cookie sessions (SvelteKit's own check is off, see
- * svelte.config.js): a state-changing request without a Bearer token must come from our origin.
+ * Cross-site protection (SvelteKit's own check is off, see svelte.config.js). A browser can send
+ * a form-encoded, multipart or plain-text request cross-site without asking first, with the
+ * session cookie: those must come from our origin unless they carry a Bearer token. Other
+ * bodies (JSON) and methods need a CORS preflight, which we never grant.
  */
 const sameOrigin: Handle = async ({ event, resolve }) => {
 	const { request, url } = event;
-	if (unsafeMethods.has(request.method) && !bearerOf(request)) {
-		const origin = request.headers.get('origin');
-		if (origin !== url.origin) {
-			const message = `Cross-site ${request.method} requests are refused`;
-			return url.pathname.startsWith('/api/') ||
-				request.headers.get('accept') === 'application/json'
-				? json({ error: { code: 'forbidden', message } }, { status: 403 })
-				: text(message, { status: 403 });
-		}
+	const type = request.headers.get('content-type')?.split(';')[0].trim().toLowerCase() ?? '';
+	if (
+		unsafeMethods.has(request.method) &&
+		formTypes.includes(type) &&
+		!bearerOf(request) &&
+		request.headers.get('origin') !== url.origin
+	) {
+		const message = `Cross-site ${request.method} form submissions are refused`;
+		return url.pathname.startsWith('/api/') || request.headers.get('accept') === 'application/json'
+			? json({ error: { code: 'forbidden', message } }, { status: 403 })
+			: text(message, { status: 403 });
 	}
 	return resolve(event);
 };

@@ -20,6 +20,12 @@ export const config = {
 	get mailFrom() {
 		return env.MAIL_FROM || 'Checkplate <checkplate@localhost>';
 	},
+	get maxUploadBytes() {
+		return Number(env.MAX_UPLOAD_MB || 100) * 1024 * 1024;
+	},
+	get uploadTempDir() {
+		return `${env.DATA_DIR || './data'}/tmp`;
+	},
 	/** Set by `npm start` when the mail fake is in use: where it keeps what it caught. */
 	get mailFakeDir() {
 		return env.MAIL_FAKE_DIR || null;

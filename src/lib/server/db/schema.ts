@@ -1,4 +1,5 @@
 import {
+	bigint,
 	bigserial,
 	boolean,
 	jsonb,
@@ -8,6 +9,7 @@ import {
 	primaryKey,
 	text,
 	timestamp,
+	uniqueIndex,
 	uuid
 } from 'drizzle-orm/pg-core';
 
@@ -205,7 +207,76 @@ export const activity = pgTable(
 	]
 );
 
+export const revisionStates = [
+	'draft',
+	'in-check',
+	'returned',
+	'approved',
+	'released',
+	'superseded'
+] as const;
+export type RevisionState = (typeof revisionStates)[number];
+
+export type GeneralToleranceSetting =
+	| null
+	| {
+			kind: 'iso2768';
+			linear: 'f' | 'm' | 'c' | 'v';
+			geometric?: 'H' | 'K' | 'L';
+			envelope?: boolean;
+	  }
+	| { kind: 'decimal-places'; byPlaces: Record<string, string>; angle?: string };
+
+export const drawings = pgTable(
+	'drawings',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		teamId: uuid('team_id')
+			.notNull()
+			.references(() => teams.id, { onDelete: 'cascade' }),
+		number: text('number').notNull(),
+		title: text('title').notNull(),
+		partName: text('part_name').notNull().default(''),
+		material: text('material').notNull().default(''),
+		units: text('units', { enum: ['mm', 'in'] }).notNull(),
+		standard: text('standard', {
+			enum: ['asme-y14.5-2018', 'asme-y14.5-2009', 'iso-8015', 'unstated']
+		}).notNull(),
+		generalTolerance: jsonb('general_tolerance').$type<GeneralToleranceSetting>(),
+		notes: text('notes').notNull().default(''),
+		version: integer('version').notNull().default(1),
+		createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(table) => [uniqueIndex('drawings_team_number_idx').on(table.teamId, table.number)]
+);
+
+export const revisions = pgTable(
+	'revisions',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		drawingId: uuid('drawing_id')
+			.notNull()
+			.references(() => drawings.id, { onDelete: 'cascade' }),
+		letter: text('letter').notNull(),
+		reason: text('reason').notNull().default(''),
+		state: text('state', { enum: revisionStates }).notNull().default('draft'),
+		pages: integer('pages').notNull(),
+		sheets: jsonb('sheets').$type<{ width: number; height: number }[]>().notNull(),
+		sha256: text('sha256').notNull(),
+		size: bigint('size', { mode: 'number' }).notNull(),
+		storageKey: text('storage_key').notNull(),
+		uploadedBy: uuid('uploaded_by').references(() => users.id, { onDelete: 'set null' }),
+		version: integer('version').notNull().default(1),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(table) => [uniqueIndex('revisions_drawing_letter_idx').on(table.drawingId, table.letter)]
+);
+
 export type UserRow = typeof users.$inferSelect;
+export type DrawingRow = typeof drawings.$inferSelect;
+export type RevisionRow = typeof revisions.$inferSelect;
 export type TeamRow = typeof teams.$inferSelect;
 export type MembershipRow = typeof memberships.$inferSelect;
 export type ActivityRow = typeof activity.$inferSelect;

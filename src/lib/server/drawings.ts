@@ -1,0 +1,35 @@
+import { error } from '@sveltejs/kit';
+import { can, type Capability } from './capabilities';
+import { db } from './db';
+import { getDrawing, getRevision, listRevisions } from './db/queries/drawings';
+import { requireMember } from './guards';
+
+const notFound = () => error(404, { message: 'Not found', code: 'not_found' });
+
+/**
+ * A drawing the asker may see with `capability`. Supplier quality sees a drawing only once a
+ * revision of it is released; to everyone else an unknown number is simply 404.
+ */
+export async function requireDrawing(teamSlug: string, number: string, capability: Capability) {
+	const access = await requireMember(teamSlug, capability);
+	const drawing = await getDrawing(db, access.team.id, number);
+	if (!drawing) notFound();
+	const releasedOnly = !can(access.membership.role, 'viewUnreleased');
+	if (releasedOnly && (await listRevisions(db, drawing.id, { releasedOnly })).length === 0) {
+		notFound();
+	}
+	return { ...access, drawing, releasedOnly };
+}
+
+export async function requireRevision(
+	teamSlug: string,
+	number: string,
+	letter: string,
+	capability: Capability
+) {
+	const access = await requireDrawing(teamSlug, number, capability);
+	const revision = await getRevision(db, access.drawing.id, letter);
+	if (!revision) notFound();
+	if (access.releasedOnly && !['released', 'superseded'].includes(revision.state)) notFound();
+	return { ...access, revision };
+}

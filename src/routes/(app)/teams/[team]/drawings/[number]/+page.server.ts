@@ -1,0 +1,65 @@
+import { fail } from '@sveltejs/kit';
+import { can } from '$lib/server/capabilities';
+import { config } from '$lib/server/config';
+import { db } from '$lib/server/db';
+import { listRevisions, StaleEdit, updateDrawing } from '$lib/server/db/queries/drawings';
+import { readDrawingForm } from '$lib/server/drawing-forms';
+import { requireDrawing } from '$lib/server/drawings';
+import { nextRevisionLetter } from '$lib/revision-letters';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ params }) => {
+	const { drawing, releasedOnly, membership } = await requireDrawing(
+		params.team,
+		params.number,
+		'view'
+	);
+	const revisions = await listRevisions(db, drawing.id, { releasedOnly });
+	return {
+		drawing: {
+			number: drawing.number,
+			title: drawing.title,
+			partName: drawing.partName,
+			material: drawing.material,
+			units: drawing.units,
+			standard: drawing.standard,
+			generalTolerance: drawing.generalTolerance,
+			notes: drawing.notes,
+			version: drawing.version
+		},
+		revisions: revisions.map(({ revision, uploadedByName }) => ({
+			letter: revision.letter,
+			reason: revision.reason,
+			state: revision.state,
+			pages: revision.pages,
+			size: revision.size,
+			sha256: revision.sha256,
+			uploadedByName,
+			createdAt: revision.createdAt
+		})),
+		nextLetter: nextRevisionLetter(revisions.map((r) => r.revision.letter)),
+		mayAuthor: can(membership.role, 'author'),
+		maxUploadMb: config.maxUploadBytes / 1024 / 1024
+	};
+};
+
+export const actions: Actions = {
+	edit: async ({ params, request }) => {
+		const { user, drawing } = await requireDrawing(params.team, params.number, 'author');
+		const form = await readDrawingForm(request);
+		if (!form.ok) return fail(400, { values: form.values, errors: form.errors });
+		const { number: _number, ...changes } = form.data;
+		try {
+			await updateDrawing(db, user, drawing, form.version, changes);
+			return { saved: true };
+		} catch (err) {
+			if (!(err instanceof StaleEdit)) throw err;
+			return fail(409, {
+				values: form.values,
+				errors: {} as Record<string, string[]>,
+				message:
+					'Someone else saved this drawing while you were editing: your changes were not applied. The page now shows their version.'
+			});
+		}
+	}
+};

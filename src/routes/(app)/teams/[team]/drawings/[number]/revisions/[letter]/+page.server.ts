@@ -1,0 +1,24 @@
+import { requireRevision } from '$lib/server/drawings';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ params }) => {
+	const { drawing, revision } = await requireRevision(
+		params.team,
+		params.number,
+		params.letter,
+		'view'
+	);
+	return {
+		drawing: { number: drawing.number, title: drawing.title, units: drawing.units },
+		revision: {
+			letter: revision.letter,
+			reason: revision.reason,
+			state: revision.state,
+			pages: revision.pages,
+			sheets: revision.sheets,
+			size: revision.size,
+			sha256: revision.sha256,
+			createdAt: revision.createdAt
+		}
+	};
+};
