@@ -1,5 +1,6 @@
 // Rulebook throughput: 100,000 features and 50,000 fits judged in full, then one edit judged
 // incrementally, against JSON.parse of the same data as a yardstick. Run: npx tsx bench/rulebook-core.ts
+import { evaluateFeature } from '../src/lib/tolerance/feature';
 import { evaluate, indexRulebook } from '../src/lib/tolerance/rulebook';
 import type {
 	RulebookDrawing,
@@ -146,6 +147,19 @@ const featuresOnly = time(() => {
 const fullRun = time(() => {
 	results = evaluate(input).length;
 });
+// What the core's own feature evaluation costs, for the same features, so the rules' share shows.
+const core = time(() => {
+	for (const f of features)
+		evaluateFeature({
+			callout: f.callout,
+			internal: f.internal,
+			units: drawing.units,
+			standard: drawing.standard,
+			generalTolerance: drawing.generalTolerance,
+			controls: f.controls,
+			notes: drawing.notes
+		});
+});
 const parse = time(() => {
 	JSON.parse(json);
 });
@@ -156,6 +170,9 @@ console.log(
 );
 console.log(
 	`  features alone      ${featuresOnly.toFixed(0)} ms  ${us(featuresOnly, FEATURES)} µs/feature`
+);
+console.log(
+	`  of which evaluateFeature ${core.toFixed(0)} ms  ${us(core, FEATURES)} µs/feature (feature.ts, before any rule)`
 );
 console.log(`  full run            ${fullRun.toFixed(0)} ms  ${results} results`);
 console.log(

@@ -21,7 +21,6 @@ export interface FeatureContext {
 	index: number;
 	spec: CalloutSpec | null;
 	parseError: { message: string; position: number } | null;
-	/** Released once the feature's own rules have run: fits re-evaluate from `spec`. */
 	evaluation: FeatureEvaluation | null;
 	/** The callout was read and evaluated. */
 	ok: boolean;

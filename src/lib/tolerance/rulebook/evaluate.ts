@@ -307,18 +307,19 @@ export function evaluate(input: RulebookInput): RuleResult[] {
 		}
 	};
 
-	const contexts = new Map<number, FeatureContext>();
-	const contextAt = (at: number): FeatureContext => {
-		let c = contexts.get(at);
-		if (!c) contexts.set(at, (c = featureContext(features[at], at, drawing)));
-		return c;
+	// Fits re-read their members from the callouts, so only whether each member could be read
+	// is kept between the two passes: holding every evaluation costs more in memory than it saves.
+	const readable = new Map<number, boolean>();
+	const readableAt = (at: number): boolean => {
+		let ok = readable.get(at);
+		if (ok === undefined) readable.set(at, (ok = featureContext(features[at], at, drawing).ok));
+		return ok;
 	};
 
 	const results: RuleResult[] = [];
 	if (scope.drawing) {
 		const all = function* () {
-			for (let i = 0; i < features.length; i++)
-				yield contexts.get(i) ?? featureContext(features[i], i, drawing);
+			for (let i = 0; i < features.length; i++) yield featureContext(features[i], i, drawing);
 		};
 		const subject: Subject = { subject: 'drawing', featureId: null, fitId: null };
 		for (const finding of drawingRules(drawing, all))
@@ -326,7 +327,7 @@ export function evaluate(input: RulebookInput): RuleResult[] {
 	}
 
 	for (const at of scope.features) {
-		const ctx = contextAt(at);
+		const ctx = featureContext(features[at], at, drawing);
 		const memberOf: Membership[] = [];
 		for (const f of scope.memberships.get(at) ?? []) {
 			const fit = fits[f];
@@ -340,8 +341,7 @@ export function evaluate(input: RulebookInput): RuleResult[] {
 			fitId: memberOf.length ? memberOf[0].fit.id : null
 		};
 		for (const finding of sortFindings(findings)) results.push(toResult(finding, subject, team));
-		if (memberOf.length) ctx.evaluation = null;
-		else contexts.delete(at);
+		if (memberOf.length) readable.set(at, ctx.ok);
 	}
 
 	for (const f of scope.fits) {
@@ -350,9 +350,9 @@ export function evaluate(input: RulebookInput): RuleResult[] {
 		const holeAt = lookup.featurePosition(fit.holeFeatureId);
 		const shaftAt = fit.shaftFeatureId ? lookup.featurePosition(fit.shaftFeatureId) : null;
 		if (holeAt === null || (fit.shaftFeatureId && shaftAt === null)) continue;
-		const hole = contextAt(holeAt);
-		const shaft = shaftAt === null ? null : contextAt(shaftAt);
-		if (!hole.ok || (shaft && !shaft.ok)) continue;
+		if (!readableAt(holeAt) || (shaftAt !== null && !readableAt(shaftAt))) continue;
+		const hole = features[holeAt];
+		const shaft = shaftAt === null ? null : features[shaftAt];
 		const r = evaluateFitFor(fit, hole, shaft, drawing);
 		if (!r.ok) continue;
 		const findings: Finding[] = [];

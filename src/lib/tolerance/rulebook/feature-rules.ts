@@ -165,7 +165,7 @@ export function featureRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[
 	const f = new LengthFormat(units, places);
 
 	if (!thread) limitRules(ctx, env, out, f);
-	envelopeRules(ctx, env, out, f);
+	envelopeRules(ctx, out, f);
 	geometricRules(ctx, env, out, thread);
 	notationRules(ctx, out);
 	if (!thread) memberRules(ctx, env, out, f);
@@ -326,12 +326,12 @@ function limitRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], f: Len
 	}
 }
 
-function envelopeRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], f: LengthFormat) {
+function envelopeRules(ctx: FeatureContext, out: Finding[], f: LengthFormat) {
 	const e = ctx.evaluation!;
-	const controls = ctx.feature.controls ?? [];
-	const causes = controlCauses(controls);
-	if (!e.envelope.applies || e.tolerance === null) return;
-	for (const [i, c] of e.controls.entries()) {
+	if (!e.envelope.applies || e.tolerance === null || e.controls.length === 0) return;
+	const causes = controlCauses(ctx.feature.controls ?? []);
+	for (let i = 0; i < e.controls.length; i++) {
+		const c = e.controls[i];
 		if (!isSurfaceForm(c.control) || c.value < e.tolerance) continue;
 		out.push({
 			rule: 'ENV-01',
@@ -345,25 +345,31 @@ function envelopeRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], f: 
 			fix: `Make the ${characteristicWord(c.control.characteristic)} smaller than ${f.show(e.tolerance)}, or remove it.`
 		});
 	}
-	void env;
 }
 
 function geometricRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], thread: boolean) {
 	const e = ctx.evaluation!;
 	const units = env.drawing.units;
 	const controls = ctx.feature.controls ?? [];
-	const causes = controlCauses(controls);
+	const causes = controls.length ? controlCauses(controls) : [];
 	const edition2009 = ctx.standard === 'asme-y14.5-2009';
-	for (const [i, ce] of e.controls.entries()) {
+	for (let i = 0; i < e.controls.length; i++) {
+		const ce = e.controls[i];
 		const c = ce.control;
-		const t = show(ce.value, units, e.places);
-		const name = characteristicWord(c.characteristic);
+		// Only a finding needs the words; most controls are fine.
+		let t = '';
+		let name = '';
+		const words = () => {
+			t = show(ce.value, units, e.places);
+			name = characteristicWord(c.characteristic);
+		};
 		const modified = c.modifier !== 'rfs';
 		const surface =
 			NO_MATERIAL_MODIFIER.includes(c.characteristic) ||
 			isSurfaceForm(c) ||
 			(edition2009 && (c.characteristic === 'concentricity' || c.characteristic === 'symmetry'));
 		if (modified && surface) {
+			words();
 			out.push({
 				rule: 'GEO-02',
 				cause: causes[i],
@@ -373,6 +379,7 @@ function geometricRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], th
 				fix: `Remove the ${modifierSymbol(c.modifier).trim()}, or control the derived median line or axis instead.`
 			});
 		} else if (modified && !thread && (c.modifier === 'mmc' ? e.mmc === null : e.lmc === null)) {
+			words();
 			out.push({
 				rule: 'GEO-01',
 				cause: causes[i],
@@ -386,6 +393,7 @@ function geometricRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], th
 			});
 		}
 		if (ce.value === 0 && !modified) {
+			words();
 			out.push({
 				rule: 'GEO-03',
 				cause: causes[i],
@@ -403,6 +411,7 @@ function geometricRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], th
 			else if (!env.datumLetters.has(letter)) missing.push(letter);
 		}
 		if (missing.length || forbidden.length) {
+			words();
 			const bad = [...forbidden, ...missing];
 			out.push({
 				rule: 'GEO-04',

@@ -4,16 +4,9 @@
 import { parseDecimal, type Length, type Units } from '../decimal';
 import type { FeatureEvaluation } from '../feature';
 import { evaluateFit, type FitEvaluation, type FitIntent } from '../fit';
-import {
-	LengthFormat,
-	boundingControls,
-	memberWord,
-	signed,
-	value,
-	type FeatureContext
-} from './context';
+import { LengthFormat, boundingControls, memberWord, signed, value } from './context';
 import type { Finding } from './emit';
-import type { RulebookDrawing, RulebookFit } from './types';
+import type { RulebookDrawing, RulebookFeature, RulebookFit } from './types';
 
 const INTENT_WORDS: Record<FitIntent, string> = {
 	running: 'a running fit',
@@ -68,20 +61,15 @@ function mmcBoundary(e: FeatureEvaluation): { at: Length; what: string; bounded:
 
 export function evaluateFitFor(
 	fit: RulebookFit,
-	hole: FeatureContext,
-	shaft: FeatureContext | null,
+	hole: RulebookFeature,
+	shaft: RulebookFeature | null,
 	drawing: RulebookDrawing
 ) {
-	const member = (c: FeatureContext) => ({
-		spec: c.spec ?? undefined,
-		callout: c.feature.callout,
-		controls: c.feature.controls,
-		overrides: c.feature.overrides,
-		notes: c.feature.notes
-			? drawing.notes
-				? `${drawing.notes}\n${c.feature.notes}`
-				: c.feature.notes
-			: drawing.notes
+	const member = (c: RulebookFeature) => ({
+		callout: c.callout,
+		controls: c.controls,
+		overrides: c.overrides,
+		notes: c.notes ? (drawing.notes ? `${drawing.notes}\n${c.notes}` : c.notes) : drawing.notes
 	});
 	return evaluateFit({
 		hole: member(hole),
@@ -105,14 +93,14 @@ export function evaluateFitFor(
 export function fitRules(
 	fit: RulebookFit,
 	r: FitEvaluation,
-	hole: FeatureContext,
-	shaft: FeatureContext | null,
+	hole: RulebookFeature,
+	shaft: RulebookFeature | null,
 	out: Finding[]
 ): void {
 	const units = r.units;
 	const f = new LengthFormat(units, r.places);
-	const holeWord = memberWord(hole.feature);
-	const shaftWord = shaft ? memberWord(shaft.feature) : fit.fastener?.label || 'fastener';
+	const holeWord = memberWord(hole);
+	const shaftWord = shaft ? memberWord(shaft) : fit.fastener?.label || 'fastener';
 	const intent = INTENT_WORDS[fit.intent];
 	const req = requiredMinimum(fit, units);
 
