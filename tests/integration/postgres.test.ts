@@ -4,8 +4,6 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { openPostgres, type Database } from '../../src/lib/server/db/connect';
 import type { Mailer } from '../../src/lib/server/mail';
 import { deliverDueMail, pendingMailCount, queueMail } from '../../src/lib/server/mail/outbox';
-import { demoPeople, seedDemo } from '../../src/lib/server/demo/seed';
-import { getTeamBySlug, listMembers } from '../../src/lib/server/db/queries/teams';
 import { freshDatabase, freshPostgres, testDatabase } from './harness';
 
 const opened: Database[] = [];
@@ -76,19 +74,5 @@ describe.skipIf(testDatabase !== 'postgres')('on a PostgreSQL server', () => {
 		expect(new Set(sent).size).toBe(40);
 		expect(sent).toHaveLength(40);
 		expect(await pendingMailCount(first.db)).toBe(0);
-	});
-
-	it('seeds the demo team once, with every member, when instances seed at the same time', async () => {
-		const first = await freshPostgres();
-		opened.push(first);
-		await first.migrate();
-		const others = await Promise.all([openPostgres(first.url), openPostgres(first.url)]);
-		opened.push(...others);
-		await Promise.all([first, ...others].map((database) => seedDemo(database.db, 'pw-for-tests')));
-		const team = await getTeamBySlug(first.db, 'kestrel');
-		const members = await listMembers(first.db, team!.id);
-		expect(members.map((m) => `${m.email} ${m.role}`).sort()).toEqual(
-			demoPeople.map((p) => `${p.email} ${p.role}`).sort()
-		);
 	});
 });
