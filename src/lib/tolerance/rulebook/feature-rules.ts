@@ -6,7 +6,6 @@
 import type { Tolerance } from '../callout-types';
 import { parseDecimal, roundToPlaces, type Length } from '../decimal';
 import { isAsme, isSurfaceForm, type Characteristic, type GeometricControl } from '../feature';
-import type { FitIntent } from '../fit';
 import { isoLimits, standardTolerance } from '../iso286';
 import {
 	LengthFormat,
@@ -64,15 +63,6 @@ const ISO_SIZE_MODIFIERS = new Set([
 	'areaDiameter',
 	'volumeDiameter'
 ]);
-/** Envelope-related fits: the mating envelope matters for every intent that must assemble. */
-const ASSEMBLING: readonly FitIntent[] = [
-	'running',
-	'locational-clearance',
-	'transition',
-	'interference',
-	'floating-fastener',
-	'fixed-fastener'
-];
 
 function zeroWidthMessage(message: string): boolean {
 	return /equal|no tolerance/i.test(message);
@@ -550,10 +540,8 @@ function memberRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], f: Le
 	}
 
 	// ENV-02 / ENV-03: nothing bounds the mating envelope.
-	let assembling = false;
-	for (const m of env.memberships) if (ASSEMBLING.includes(m.fit.intent)) assembling = true;
 	const bounded = e.envelope.applies || boundingControls(e).length > 0;
-	if (assembling && !bounded && e.mmc !== null) {
+	if (!bounded && e.mmc !== null) {
 		if (ctx.standard === 'iso-8015') {
 			out.push({
 				rule: 'ENV-02',
