@@ -26,14 +26,16 @@ function freePort() {
 		const server = createServer();
 		server.once('error', reject);
 		server.listen(0, '127.0.0.1', () => {
-			const { port } = server.address();
+			const { port } = /** @type {import('node:net').AddressInfo} */ (server.address());
 			server.close(() => resolve(port));
 		});
 	});
 }
 
+/** @param {string} name */
 function userIds(name) {
-	const id = (flag) => Number(spawnSync('id', [flag, name], { encoding: 'utf8' }).stdout.trim());
+	const id = (/** @type {string} */ flag) =>
+		Number(spawnSync('id', [flag, name], { encoding: 'utf8' }).stdout.trim());
 	return { uid: id('-u'), gid: id('-g') };
 }
 
@@ -52,6 +54,7 @@ export async function startPostgres({ database = 'checkplate' } = {}) {
 	}
 	const data = join(dir, 'data');
 	const log = join(dir, 'server.log');
+	/** @param {string} tool @param {string[]} args */
 	const run = (tool, args) => {
 		const command = asRoot ? 'runuser' : join(bin, tool);
 		const all = asRoot ? ['-u', 'postgres', '--', join(bin, tool), ...args] : args;
