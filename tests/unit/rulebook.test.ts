@@ -170,6 +170,12 @@ describe('LIM-04 ISO 286 code in conflict', () => {
 		expect(r.cause).toBe('disagrees');
 		expect(r.line).toBe('stated 25.000–25.025, H7 at 25.000 gives 25.000–25.021 (ISO 286-2)');
 	});
+	it('deviations beside a class are checked too, and agreeing ones pass', () => {
+		const r = one(run(iso, [feature('Ø25 H7 (+0.025/0)', true)]), 'LIM-04');
+		expect(r.line).toBe('stated 25.000–25.025, H7 at 25.000 gives 25.000–25.021 (ISO 286-2)');
+		expect(run(iso, [feature('Ø25 H7 (25.000/25.021)', true)])).toEqual([]);
+		expect(run(iso, [feature('Ø25 +0.021/0 (H7)', true)])).toEqual([]);
+	});
 	it('a code not defined at the size (a is not used up to 1 mm, ISO 286-1)', () => {
 		const r = one(run(iso, [feature('Ø1 a11', false)]), 'LIM-04');
 		expect(r.cause).toBe('undefined');

@@ -121,6 +121,36 @@ function unequalPlaces(
 	return null;
 }
 
+/** The two limits a tolerance states beside an ISO class, with the places each was written with. */
+function statedLimits(tolerance: Tolerance | null, nominal: Length) {
+	if (!tolerance) return null;
+	switch (tolerance.type) {
+		case 'limits':
+			return {
+				lower: tolerance.lower.value,
+				upper: tolerance.upper.value,
+				lowerPlaces: tolerance.lower.places,
+				upperPlaces: tolerance.upper.places
+			};
+		case 'deviations':
+			return {
+				lower: nominal + tolerance.lower.value,
+				upper: nominal + tolerance.upper.value,
+				lowerPlaces: tolerance.lower.places,
+				upperPlaces: tolerance.upper.places
+			};
+		case 'bilateral':
+			return {
+				lower: nominal - tolerance.deviation.value,
+				upper: nominal + tolerance.deviation.value,
+				lowerPlaces: tolerance.deviation.places,
+				upperPlaces: tolerance.deviation.places
+			};
+		default:
+			return null;
+	}
+}
+
 function agrees(stated: Length, iso: Length, places: number, units: 'mm' | 'in', up: boolean) {
 	if (stated === iso) return true;
 	if (stated === roundToPlaces(iso, units, places, up ? 'up' : 'down')) return true;
@@ -198,35 +228,27 @@ function limitRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], f: Len
 					line: `${cls.code} at ${f.show(nominal)}: ${iso.reason}`,
 					fix: 'Choose a tolerance class ISO 286 defines at this size, or write the limits.'
 				});
-			} else if (spec.tolerance && spec.tolerance.type === 'limits') {
-				const lowerOk = agrees(
-					spec.tolerance.lower.value,
-					iso.lower,
-					spec.tolerance.lower.places,
-					units,
-					true
-				);
-				const upperOk = agrees(
-					spec.tolerance.upper.value,
-					iso.upper,
-					spec.tolerance.upper.places,
-					units,
-					false
-				);
-				if (!lowerOk || !upperOk) {
+			} else {
+				const stated = statedLimits(spec.tolerance, nominal);
+				if (
+					stated &&
+					!(
+						agrees(stated.lower, iso.lower, stated.lowerPlaces, units, true) &&
+						agrees(stated.upper, iso.upper, stated.upperPlaces, units, false)
+					)
+				) {
 					const isoText = `${show(iso.lower, units, 3)}–${show(iso.upper, units, 3)}`;
-					const stated = `${f.show(spec.tolerance.lower.value)}–${f.show(spec.tolerance.upper.value)}`;
 					out.push({
 						rule: 'LIM-04',
 						cause: 'disagrees',
 						message: `The limits written beside ${cls.code} are not the limits ${cls.code} gives.`,
 						values: [
-							value('stated lower', spec.tolerance.lower.value, f.show(spec.tolerance.lower.value)),
-							value('stated upper', spec.tolerance.upper.value, f.show(spec.tolerance.upper.value)),
+							value('stated lower', stated.lower, f.show(stated.lower)),
+							value('stated upper', stated.upper, f.show(stated.upper)),
 							value(`${cls.code} lower`, iso.lower, show(iso.lower, units, 3)),
 							value(`${cls.code} upper`, iso.upper, show(iso.upper, units, 3))
 						],
-						line: `stated ${stated}, ${cls.code} at ${f.show(nominal)} gives ${isoText} (ISO 286-2)`,
+						line: `stated ${f.show(stated.lower)}–${f.show(stated.upper)}, ${cls.code} at ${f.show(nominal)} gives ${isoText} (ISO 286-2)`,
 						fix: `Write ${isoText}, or drop one of the two statements.`
 					});
 				}
