@@ -39,7 +39,8 @@ export default async function setup(project: TestProject) {
 			DATABASE_URL: '',
 			S3_ENDPOINT: '',
 			SMTP_URL: '',
-			DEMO_PASSWORD: 'demo-password-for-tests'
+			DEMO_PASSWORD: 'demo-password-for-tests',
+			MAX_UPLOAD_MB: '20'
 		},
 		stdio: ['ignore', 'pipe', 'inherit']
 	});

@@ -59,7 +59,8 @@ export const revisionLetter = z.string().trim().toUpperCase().refine(isRevisionL
 
 export const revisionFields = z.object({
 	reason: z.string().trim().max(2000).default(''),
-	letter: revisionLetter.optional()
+	// A form sends an empty field for "the next letter".
+	letter: z.preprocess((v) => (v === '' ? undefined : v), revisionLetter.optional())
 });
 
 /** The drawing form sends the general tolerance as flat fields; this builds the API shape. */

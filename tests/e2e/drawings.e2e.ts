@@ -1,0 +1,97 @@
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { twoSheetPdf } from '../fixtures/pdfs';
+import { launchBrowser, screenshot, watchOutsideRequests } from './browser';
+
+const baseUrl = inject('baseUrl');
+let browser: Browser;
+const files = mkdtempSync(join(tmpdir(), 'checkplate-files-'));
+
+beforeAll(async () => {
+	browser = await launchBrowser();
+});
+afterAll(async () => {
+	await browser?.close();
+});
+
+describe('the drafter', () => {
+	it('creates a drawing, uploads a two-sheet PDF with progress, and sees its sheets', async () => {
+		const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+		const outside = watchOutsideRequests(page, baseUrl);
+		await page.goto(`${baseUrl}/signin`);
+		await page.getByLabel('E-mail').fill('drafter@example.test');
+		await page.getByLabel('Password').fill('demo-password-for-tests');
+		await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+		await page.getByRole('heading', { name: 'Your teams' }).waitFor();
+
+		await page.goto(`${baseUrl}/teams/kestrel`);
+		await page.getByRole('link', { name: 'KF-1001' }).waitFor();
+		await screenshot(page, 'drawings');
+		await page.getByRole('button', { name: 'New drawing' }).click();
+		const number = `KF-${Date.now() % 100000}`;
+		await page.getByLabel('Drawing number').fill(number);
+		await page.getByLabel('Title', { exact: true }).fill('Pump cover');
+		await page.getByLabel('Part name', { exact: true }).fill('Cover, pump head');
+		await page.getByLabel('ISO 2768 class').check();
+		await page.getByRole('button', { name: 'Create drawing' }).click();
+		await page.getByRole('heading', { name: number }).waitFor();
+
+		const notPdf = join(files, 'cover.pdf');
+		writeFileSync(notPdf, 'not a drawing, just text');
+		await page.getByLabel('PDF of the drawing').setInputFiles(notPdf);
+		await page.getByRole('button', { name: 'Upload revision' }).click();
+		await page.getByRole('alert').getByText('This is not a PDF').waitFor();
+		await screenshot(page, 'upload-refused');
+
+		const pdf = join(files, 'cover-a.pdf');
+		writeFileSync(pdf, await twoSheetPdf(number));
+		await page.getByLabel('PDF of the drawing').setInputFiles(pdf);
+		await page.getByLabel('Reason for the change').fill('First issue for review');
+		await page.getByRole('button', { name: 'Upload revision' }).click();
+		await page.getByText('Revision A uploaded: 2 sheets.').waitFor();
+		expect(await page.getByRole('cell', { name: 'First issue for review' }).count()).toBe(1);
+
+		await page.getByRole('link', { name: 'A', exact: true }).click();
+		await page.getByRole('heading', { name: 'Revision A' }).waitFor();
+		// Thumbnails are drawn by pdf.js in the page: wait until the second canvas has pixels.
+		await page.waitForFunction(() => {
+			const canvas = document.querySelector<HTMLCanvasElement>('canvas[data-sheet="2"]');
+			return canvas !== null && canvas.width > 0;
+		});
+		await screenshot(page, 'revision');
+		expect(outside).toEqual([]);
+		await page.close();
+	});
+
+	it('shows the upload progress bar while a file is sent', async () => {
+		const page = await browser.newPage();
+		await page.goto(`${baseUrl}/signin`);
+		await page.getByLabel('E-mail').fill('drafter@example.test');
+		await page.getByLabel('Password').fill('demo-password-for-tests');
+		await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+		await page.getByRole('heading', { name: 'Your teams' }).waitFor();
+		await page.goto(`${baseUrl}/teams/kestrel/drawings/KF-1003`);
+		const big = join(files, 'big.pdf');
+		const pdf = await twoSheetPdf('BIG');
+		// A real PDF padded with a long comment, so the transfer takes long enough to watch.
+		const padded = Buffer.concat([
+			Buffer.from(pdf.slice(0, 9)),
+			Buffer.from(`%${'x'.repeat(12 * 1024 * 1024)}\n`),
+			Buffer.from(pdf.slice(9))
+		]);
+		writeFileSync(big, padded);
+		await page.getByLabel('PDF of the drawing').setInputFiles(big);
+		await page.getByRole('button', { name: 'Upload revision' }).click();
+		await page.getByRole('progressbar', { name: 'Upload progress' }).waitFor();
+		await screenshot(page, 'upload-progress');
+		await page
+			.getByRole('alert')
+			.or(page.getByText(/Revision B uploaded/))
+			.first()
+			.waitFor();
+		await page.close();
+	});
+});
