@@ -8,6 +8,8 @@ import {
 	demoDrawings,
 	type DemoDrawingNumber
 } from '../../src/lib/server/demo/drawings';
+import { parseCallout, type GeometricControl } from '../../src/lib/tolerance';
+import { demoDrawings as rulebookDrawings } from '../unit/fixtures/demo-drawings';
 
 const outDir = join(process.cwd(), 'test-results', 'demo');
 const standardFontDataUrl =
@@ -43,6 +45,21 @@ async function extract(bytes: Uint8Array): Promise<Extracted> {
 
 const normalise = (text: string) => text.replace(/\s+/g, ' ').trim();
 
+const symbols: Partial<Record<GeometricControl['characteristic'], string>> = {
+	straightness: '⏤',
+	flatness: '⏥',
+	position: '⌖'
+};
+const modifiers = { mmc: ' Ⓜ', lmc: ' Ⓛ', rfs: '' };
+
+/** A feature control frame as the drawing writes it, cell by cell. */
+function frameText(c: GeometricControl): string {
+	const symbol = symbols[c.characteristic];
+	if (!symbol) throw new Error(`No symbol for ${c.characteristic} in this test`);
+	const zone = `${c.diameterZone ? 'Ø' : ''}${c.value}${modifiers[c.modifier]}`;
+	return [symbol, zone, ...c.datums].join(' ');
+}
+
 describe('demo drawings', () => {
 	const generated = new Map<DemoDrawingNumber, { bytes: Uint8Array; ms: number }>();
 
@@ -76,21 +93,61 @@ describe('demo drawings', () => {
 		const texts = (number: DemoDrawingNumber) =>
 			demoDrawings.find((d) => d.number === number)!.callouts.map((c) => c.text);
 		expect(texts('KF-1001')).toEqual(
-			expect.arrayContaining(['Ø18 H7', '2X Ø6 H7 Ⓔ', '4X Ø6.6', '⌖ Ø0.2 Ⓜ A B', 'SLOT 8'])
+			expect.arrayContaining(['Ø18 H7', '2X Ø6 H7 Ⓔ', '4X Ø6.6', '⌖ Ø0.2 Ⓜ A B', '8'])
 		);
 		expect(texts('KF-1002')).toEqual(
 			expect.arrayContaining(['Ø12 g6', '⏤ Ø0.02 Ⓜ', 'Ø10 h6 Ⓔ', '3 N9', '90'])
 		);
-		expect(texts('KF-1003')).toEqual(expect.arrayContaining(['Ø12 H7', 'Ø18 p6', '20']));
+		expect(texts('KF-1003')).toEqual(expect.arrayContaining(['Ø12 H7', 'Ø18 p6 Ⓔ', '20']));
 		expect(texts('KF-2001')).toEqual(
 			expect.arrayContaining([
-				'Ø.2510-.255',
+				'Ø.250-.2515',
 				'Ø.2500-.249',
 				'.250 ±.005',
-				'⏥ .010',
+				'⏥ .015',
 				'PIVOT FIT: RUNNING'
 			])
 		);
+	});
+
+	it('writes every size callout so that the callout parser reads it', () => {
+		for (const drawing of demoDrawings) {
+			for (const callout of drawing.callouts.filter((c) => c.kind === 'size')) {
+				const parsed = parseCallout(callout.text, { units: drawing.units });
+				expect(parsed, `${drawing.number} ${callout.label}: ${callout.text}`).toMatchObject({
+					ok: true
+				});
+			}
+		}
+	});
+
+	it('draws what the rulebook fixture describes: features, frames, datums and notes', () => {
+		expect(rulebookDrawings.map((d) => d.number)).toEqual(demoDrawings.map((d) => d.number));
+		for (const drawing of demoDrawings) {
+			const fixture = rulebookDrawings.find((d) => d.number === drawing.number)!;
+			const where = drawing.number;
+			expect(drawing.title, where).toBe(fixture.title);
+			expect(drawing.units, where).toBe(fixture.drawing.units);
+			expect(drawing.standard, where).toBe(fixture.drawing.standard);
+			expect(drawing.generalTolerance, where).toEqual(fixture.drawing.generalTolerance);
+			const drawn = (kind: string) =>
+				drawing.callouts.filter((c) => c.kind === kind).map((c) => c.text);
+			// Every feature of size is drawn with the fixture's callout and label, and nothing else.
+			expect(
+				drawing.callouts.filter((c) => c.kind === 'size').map((c) => [c.label, c.text]),
+				where
+			).toEqual(expect.arrayContaining(fixture.features.map((f) => [f.label, f.callout])));
+			expect(drawn('size').length, where).toBe(fixture.features.length);
+			expect(drawn('frame').sort(), where).toEqual(
+				fixture.features.flatMap((f) => (f.controls ?? []).map(frameText)).sort()
+			);
+			const letters = new Set([
+				...(fixture.drawing.datums ?? []),
+				...fixture.features.flatMap((f) => (f.datumFeature ? [f.datumFeature] : []))
+			]);
+			expect(drawn('datum').sort(), where).toEqual([...letters].sort());
+			expect(drawn('note'), where).toEqual(fixture.drawing.notes?.split('\n'));
+		}
 	});
 
 	for (const drawing of demoDrawings) {

@@ -196,7 +196,6 @@ function drawHousing(s: Sheet) {
 	s.holeLeader(dowels[0], 3 * k, 125, [70, 46], '2X Ø6 H7 Ⓔ', 'Dowel holes');
 	s.holeLeader(bolts[1], 3.3 * k, 60, [216, 38], '4X Ø6.6', 'Cover bolt holes');
 	s.frame([238, 46.5], ['⌖', 'Ø0.2 Ⓜ', 'A', 'B'], 'Cover bolt holes: position');
-	s.holeLeader(v(8, -20), 4 * k, -50, [190, 204], 'SLOT 8', 'Slot');
 
 	// Size and location dimensions.
 	s.dimension([l, b], [r, b], 'h', 214, '80', { label: 'Overall length' });
@@ -234,6 +233,11 @@ function drawHousing(s: Sheet) {
 	s.text('A–A', [sx + 30, t - 12], { h: 5 });
 	s.dimension(sv(30, -30), sv(0, -30), 'h', 200, '30', { label: 'Depth' });
 	s.dimension(sv(0, -24), sv(6, -24), 'h', 196, '6', { label: 'Slot depth' });
+	// The slot's width where the cut shows it: no limits of its own, ISO 2768-m applies.
+	s.dimension(sv(0, -16), sv(0, -24), 'v', sx + 30 * k + 14, '8', {
+		label: 'Slot width',
+		kind: 'size'
+	});
 	s.datum('A', sv(0, 18), [sx + 30 * k + 12, 82], 'Datum A: front face');
 }
 
@@ -375,7 +379,7 @@ function drawBushing(s: Sheet) {
 	s.text('A', [cutTop[0] - 4, cutTop[1] - 4], { h: 5 });
 	s.text('A', [cutBottom[0] - 4, cutBottom[1] + 4.5], { h: 5 });
 
-	s.dimension(v(0, 9), v(0, -9), 'v', 44, 'Ø18 p6', {
+	s.dimension(v(0, 9), v(0, -9), 'v', 44, 'Ø18 p6 Ⓔ', {
 		label: 'Outside diameter',
 		kind: 'size',
 		shift: -10
@@ -393,7 +397,7 @@ function drawBushing(s: Sheet) {
 function drawBracket(s: Sheet) {
 	const k = 2 * 25.4;
 	const v = viewOf([70, 190], k); // front view, origin at the bottom-left corner
-	const hole = 0.253 / 2;
+	const hole = 0.2508 / 2;
 	s.poly([v(0, 0), v(3, 0), v(3, 2), v(2.75, 2), v(2.75, 0.25), v(0, 0.25)]);
 	s.line(v(2.75, 1.25 + hole), v(3, 1.25 + hole), 'hidden');
 	s.line(v(2.75, 1.25 - hole), v(3, 1.25 - hole), 'hidden');
@@ -413,7 +417,7 @@ function drawBracket(s: Sheet) {
 	s.circle(pivot, hole * k);
 	s.centreMark(pivot, 0.75 * k, 3);
 
-	s.holeLeader(pivot, hole * k, 50, [344, 76], 'Ø.2510-.255', 'Pivot hole');
+	s.holeLeader(pivot, hole * k, 50, [344, 76], 'Ø.250-.2515', 'Pivot hole');
 	const arcPoint = w(0.75 - 0.75 * Math.SQRT1_2, 1.25 + 0.75 * Math.SQRT1_2);
 	s.leader(arcPoint, [270, 84], 'R.75', 'Tab end radius', 'dimension');
 	s.dimension(w(0, 0), w(1.5, 0), 'h', 204, '1.50', { label: 'Tab width' });
@@ -421,7 +425,7 @@ function drawBracket(s: Sheet) {
 
 	s.dimension(v(2.75, 2), v(3, 2), 'h', 76, '.250 ±.005', { label: 'Tab thickness', kind: 'size' });
 	const frameAt: Pt = [250, v(0, 0.8)[1]];
-	const [frameLeft] = s.frame(frameAt, ['⏥', '.010'], 'Tab: flatness');
+	const [frameLeft] = s.frame(frameAt, ['⏥', '.015'], 'Tab: flatness');
 	s.line([frameLeft, frameAt[1]], v(3, 0.8), 'thin');
 	s.arrow(v(3, 0.8), [frameLeft, frameAt[1]]);
 	s.dimension(v(0, 0), v(3, 0), 'h', 204, '3.00', { label: 'Overall length' });
