@@ -2,7 +2,7 @@ import { randomUUID, createHash } from 'node:crypto';
 import { createReadStream, createWriteStream } from 'node:fs';
 import { mkdir, rm } from 'node:fs/promises';
 import { join } from 'node:path';
-import { Readable, Transform } from 'node:stream';
+import { PassThrough, Readable, Transform } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import busboy from 'busboy';
 import { nextRevisionLetter } from '$lib/revision-letters';
@@ -16,7 +16,7 @@ import {
 	RevisionLetterTaken
 } from './db/queries/drawings';
 import { inspectPdf } from './pdf';
-import type { Storage } from './storage';
+import type { Storage, StoredObject } from './storage';
 
 type Actor = { id: string; name: string | null; email: string };
 
@@ -40,15 +40,24 @@ interface Received {
 	size: number;
 	sha256: string;
 	fields: Record<string, string>;
+	/** Present when the bytes went to storage while they arrived. */
+	stored?: StoredObject;
 }
+
+type Written = { size: number; sha256: string; tooLarge: boolean };
 
 /**
  * Streams a multipart body to a temporary file (never into memory), hashing and counting as it
- * goes. Only the field `file` is kept; anything over `maxBytes` is refused.
+ * goes, and, given `store`, into storage at the same time so the two transfers overlap. Only the
+ * field `file` is kept; anything over `maxBytes` is refused and whatever was stored is removed.
  */
 export async function receiveUpload(
 	request: Request,
-	options: { maxBytes: number; tempDir: string }
+	options: {
+		maxBytes: number;
+		tempDir: string;
+		store?: { storage: Storage; key: string };
+	}
 ): Promise<Received | Refusal> {
 	const contentType = request.headers.get('content-type') ?? '';
 	if (!contentType.startsWith('multipart/form-data') || !request.body) {
@@ -57,7 +66,8 @@ export async function receiveUpload(
 	await mkdir(options.tempDir, { recursive: true });
 	const path = join(options.tempDir, `${randomUUID()}.upload`);
 	const fields: Record<string, string> = {};
-	let written: Promise<{ size: number; sha256: string; tooLarge: boolean }> | null = null;
+	let written: Promise<Written> | null = null;
+	let stored: Promise<StoredObject> | null = null;
 
 	const parser = busboy({
 		headers: { 'content-type': contentType },
@@ -84,31 +94,55 @@ export async function receiveUpload(
 				done(null, chunk);
 			}
 		});
-		written = pipeline(stream, counter, createWriteStream(path)).then(() => ({
-			size,
-			sha256: hash.digest('hex'),
-			tooLarge
-		}));
+		const toDisk = new PassThrough();
+		counter.pipe(toDisk);
+		if (options.store) {
+			const toStorage = new PassThrough();
+			counter.pipe(toStorage);
+			stored = options.store.storage.put(options.store.key, toStorage, 'application/pdf');
+		}
+		written = Promise.all([
+			pipeline(stream, counter),
+			pipeline(toDisk, createWriteStream(path))
+		]).then(() => ({ size, sha256: hash.digest('hex'), tooLarge }));
 	});
 
+	const discard = async () => {
+		await rm(path, { force: true });
+		if (options.store) await options.store.storage.remove(options.store.key).catch(() => {});
+	};
 	try {
 		await pipeline(Readable.fromWeb(request.body as never), parser);
 		if (!written) return refuse(400, 'invalid', 'No file: send the drawing in a field named file.');
-		const file = await (written as Promise<{ size: number; sha256: string; tooLarge: boolean }>);
+		const [file, object] = await Promise.all([
+			written as Promise<Written>,
+			(stored as Promise<StoredObject> | null)?.catch((err: Error) => err) ?? null
+		]);
 		if (file.tooLarge) {
-			await rm(path, { force: true });
+			await discard();
 			const mb = Math.round(options.maxBytes / 1024 / 1024);
 			return refuse(413, 'too_large', `The file is larger than the ${mb} MB limit.`);
 		}
-		return { ok: true, path, size: file.size, sha256: file.sha256, fields };
+		if (object instanceof Error) throw object;
+		return {
+			ok: true,
+			path,
+			size: file.size,
+			sha256: file.sha256,
+			fields,
+			stored: object ?? undefined
+		};
 	} catch (err) {
-		await rm(path, { force: true });
+		await discard();
 		if ((err as { status?: number }).status === 413) {
 			return refuse(413, 'too_large', 'The upload is larger than the limit.');
 		}
 		throw err;
 	}
 }
+
+export const revisionStorageKey = (drawing: Pick<DrawingRow, 'teamId' | 'id'>) =>
+	`teams/${drawing.teamId}/drawings/${drawing.id}/${randomUUID()}.pdf`;
 
 /**
  * Checks an uploaded revision by its content, stores it under a key of our own, verifies what
@@ -122,7 +156,8 @@ export async function storeRevision(
 	drawing: DrawingRow,
 	upload: Received
 ) {
-	let storedKey: string | null = null;
+	// Whatever is in storage for this upload goes again unless the revision row is written.
+	let storedKey: string | null = upload.stored?.key ?? null;
 	try {
 		const fields = revisionFields.safeParse(upload.fields);
 		if (!fields.success) {
@@ -145,9 +180,15 @@ export async function storeRevision(
 		if (existing.includes(letter)) {
 			return refuse(409, 'conflict', `Revision ${letter} already exists; choose another letter.`);
 		}
-		const key = `teams/${drawing.teamId}/drawings/${drawing.id}/${randomUUID()}.pdf`;
-		const stored = await storage.put(key, createReadStream(upload.path), 'application/pdf');
-		storedKey = key;
+		const stored =
+			upload.stored ??
+			(await storage.put(
+				revisionStorageKey(drawing),
+				createReadStream(upload.path),
+				'application/pdf'
+			));
+		storedKey = stored.key;
+		const key = stored.key;
 		if (stored.size !== upload.size || stored.sha256 !== upload.sha256) {
 			throw new Error('Storage holds different bytes than were uploaded');
 		}
