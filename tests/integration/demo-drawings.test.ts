@@ -61,14 +61,13 @@ function frameText(c: GeometricControl): string {
 }
 
 describe('demo drawings', () => {
-	const generated = new Map<DemoDrawingNumber, { bytes: Uint8Array; ms: number }>();
+	const generated = new Map<DemoDrawingNumber, { bytes: Uint8Array }>();
 
 	beforeAll(async () => {
 		mkdirSync(outDir, { recursive: true });
 		for (const drawing of demoDrawings) {
-			const started = performance.now();
 			const bytes = await demoDrawingPdf(drawing.number);
-			generated.set(drawing.number, { bytes, ms: performance.now() - started });
+			generated.set(drawing.number, { bytes });
 			writeFileSync(join(outDir, `${drawing.number}.pdf`), bytes);
 		}
 	});
@@ -152,11 +151,11 @@ describe('demo drawings', () => {
 
 	for (const drawing of demoDrawings) {
 		describe(drawing.number, () => {
-			it('is a small PDF generated quickly', () => {
-				const { bytes, ms } = generated.get(drawing.number)!;
+			// How long generation takes is measured nowhere here: timings belong in bench/.
+			it('is a small PDF', () => {
+				const { bytes } = generated.get(drawing.number)!;
 				expect(new TextDecoder().decode(bytes.subarray(0, 5))).toBe('%PDF-');
 				expect(bytes.length).toBeLessThan(200_000);
-				expect(ms).toBeLessThan(drawing.number === demoDrawings[0].number ? 2000 : 500);
 			});
 
 			it('opens in pdf.js with one sheet of the stated size', async () => {
