@@ -7,6 +7,8 @@ import { resolve } from 'node:path';
 import { findChromium } from '../tests/e2e/chromium.js';
 import { findPostgresBin, startPostgres } from './postgres.js';
 
+// The pinned AWS SDK's notice about Node 22 would repeat in every test process.
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= 'true';
 process.chdir(resolve(import.meta.dirname, '..'));
 const results = 'test-results/vitest';
 rmSync(results, { recursive: true, force: true });

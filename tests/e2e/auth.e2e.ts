@@ -12,11 +12,12 @@ afterAll(async () => {
 	await browser?.close();
 });
 
-/** Opens the newest caught message to `to` on /dev/mail and follows the link named `linkName`. */
-async function followMailLink(page: Page, to: string, linkName: string) {
+/** Opens the caught message to `to` whose subject matches, on /dev/mail, and follows a link. */
+async function followMailLink(page: Page, to: string, subject: string, linkName: string) {
 	for (let i = 0; i < 50; i++) {
 		await page.goto(`${baseUrl}/dev/mail`);
-		const item = page.getByRole('button', { name: new RegExp(`to ${to}`) }).first();
+		// The outbox delivers within seconds: reload until this very message is there.
+		const item = page.getByRole('button', { name: new RegExp(`${subject}.*to ${to}`) }).first();
 		if (await item.count()) {
 			await item.click();
 			break;
@@ -44,7 +45,7 @@ describe('a new user', () => {
 		await page.getByRole('button', { name: 'Create account' }).click();
 		await page.getByText('Check your mail').waitFor();
 
-		await followMailLink(page, email, 'Confirm my address');
+		await followMailLink(page, email, 'Confirm your e-mail address', 'Confirm my address');
 		await page.getByText('Your e-mail address is confirmed').waitFor();
 
 		await page.getByLabel('E-mail').fill(email);
@@ -66,7 +67,7 @@ describe('a new user', () => {
 		await page.getByLabel('E-mail').fill(email);
 		await page.getByRole('button', { name: 'Send me a sign-in link' }).click();
 		await page.getByText('a sign-in link is on its way').waitFor();
-		await followMailLink(page, email, 'Sign in');
+		await followMailLink(page, email, 'Your Checkplate sign-in link', 'Sign in');
 		await page.getByRole('link', { name: 'Lena Okafor' }).waitFor();
 		expect(outside).toEqual([]);
 		await page.close();

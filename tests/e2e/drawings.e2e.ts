@@ -52,7 +52,7 @@ describe('the drafter', () => {
 		await page.getByLabel('Reason for the change').fill('First issue for review');
 		await page.getByRole('button', { name: 'Upload revision' }).click();
 		await page.getByText('Revision A uploaded: 2 sheets.').waitFor();
-		expect(await page.getByRole('cell', { name: 'First issue for review' }).count()).toBe(1);
+		await page.getByRole('cell', { name: 'First issue for review' }).waitFor();
 
 		await page.getByRole('link', { name: 'A', exact: true }).click();
 		await page.getByRole('heading', { name: 'Revision A' }).waitFor();
