@@ -85,3 +85,8 @@ export function generalToleranceFromForm(form: Record<string, FormDataEntryValue
 	}
 	return null;
 }
+
+export const revisionPatch = z.object({
+	version: z.number().int().positive(),
+	reason: z.string().trim().max(2000)
+});

@@ -1,5 +1,5 @@
 import { error, json } from '@sveltejs/kit';
-import { z } from 'zod';
+import { revisionPatch } from '$lib/schemas/drawings';
 import { readJson } from '$lib/server/api-input';
 import { db } from '$lib/server/db';
 import { publicRevision, updateRevisionReason } from '$lib/server/db/queries/drawings';
@@ -10,11 +10,6 @@ export const GET: RequestHandler = async ({ params }) => {
 	const { revision } = await requireRevision(params.team, params.number, params.letter, 'view');
 	return json(publicRevision(revision));
 };
-
-const revisionPatch = z.object({
-	version: z.number().int().positive(),
-	reason: z.string().trim().max(2000)
-});
 
 /** The reason for the change can be corrected; states change through transitions. */
 export const PATCH: RequestHandler = async ({ params, request }) => {

@@ -1,0 +1,225 @@
+import { z } from 'zod';
+import { adviseInput, fitInput, sizeInput, sizeQuery } from '$lib/schemas/calc';
+import { drawingInput, drawingPatch, revisionPatch } from '$lib/schemas/drawings';
+import { apiTokenInput, memberInput, roleInput, teamInput } from '$lib/schemas/teams';
+
+type Method = 'get' | 'post' | 'patch' | 'delete';
+interface Operation {
+	summary: string;
+	body?: z.ZodType;
+	multipart?: boolean;
+	query?: z.ZodObject;
+	public?: boolean;
+	success: number;
+	produces?: string;
+}
+
+/**
+ * The API map of PRODUCT.md §6. Request bodies come from the same zod schemas the routes and
+ * forms validate with; a unit test keeps this list and the route files in step.
+ */
+export const operations: Record<string, Partial<Record<Method, Operation>>> = {
+	'/me': { get: { summary: 'The signed-in user', success: 200 } },
+	'/me/tokens': {
+		get: { summary: 'Your personal API tokens (never the secrets)', success: 200 },
+		post: {
+			summary: 'Create a token; the secret is in this answer only',
+			body: apiTokenInput,
+			success: 201
+		}
+	},
+	'/me/tokens/{id}': { delete: { summary: 'Revoke a token', success: 204 } },
+	'/teams': {
+		get: { summary: 'Your teams with your role in each', success: 200 },
+		post: { summary: 'Create a team; you become its admin', body: teamInput, success: 201 }
+	},
+	'/teams/{team}/members': {
+		get: { summary: 'Members and their roles', success: 200 },
+		post: {
+			summary: 'Add someone with an account (201) or invite them by e-mail (202)',
+			body: memberInput,
+			success: 201
+		}
+	},
+	'/teams/{team}/members/{userId}': {
+		patch: {
+			summary: "Change a member's role (never the last admin)",
+			body: roleInput,
+			success: 200
+		},
+		delete: { summary: 'Remove a member (never the last admin)', success: 204 }
+	},
+	'/teams/{team}/invitations': {
+		get: { summary: 'Open invitations', success: 200 },
+		post: { summary: 'Invite by e-mail', body: memberInput, success: 201 }
+	},
+	'/teams/{team}/invitations/{id}': { delete: { summary: 'Withdraw an invitation', success: 204 } },
+	'/teams/{team}/activity': {
+		get: { summary: 'The append-only activity trail, newest first', success: 200 }
+	},
+	'/teams/{team}/drawings': {
+		get: { summary: 'Drawings with their latest revision', success: 200 },
+		post: { summary: 'Create a drawing', body: drawingInput, success: 201 }
+	},
+	'/teams/{team}/drawings/{number}': {
+		get: { summary: 'A drawing and its revisions', success: 200 },
+		patch: {
+			summary: 'Edit a drawing; a stale version answers 409 stale with the current drawing',
+			body: drawingPatch,
+			success: 200
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions': {
+		get: { summary: 'Revisions, newest first', success: 200 },
+		post: {
+			summary: 'Upload a revision: multipart with `file` (PDF), optional `reason` and `letter`',
+			multipart: true,
+			success: 201
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}': {
+		get: { summary: 'One revision', success: 200 },
+		patch: { summary: 'Correct the reason for the change', body: revisionPatch, success: 200 }
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/file': {
+		get: {
+			summary: 'The PDF, streamed through the app, with HTTP Range support',
+			success: 200,
+			produces: 'application/pdf'
+		}
+	},
+	'/calc/size': {
+		get: {
+			summary: 'Limits, MMC/LMC, envelope and gauges of one callout',
+			query: sizeQuery,
+			public: true,
+			success: 200
+		},
+		post: {
+			summary: 'The same with geometric tolerances, an actual size or a general tolerance',
+			body: sizeInput,
+			public: true,
+			success: 200
+		}
+	},
+	'/calc/fit': {
+		post: {
+			summary: 'Clearances and classification of a fit',
+			body: fitInput,
+			public: true,
+			success: 200
+		}
+	},
+	'/calc/advise': {
+		post: {
+			summary: 'Proposed hole and shaft classes for a fit',
+			body: adviseInput,
+			public: true,
+			success: 200
+		}
+	}
+};
+
+const jsonSchema = (schema: z.ZodType) =>
+	z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any', target: 'openapi-3.0' });
+
+const errorResponse = {
+	description: 'An error: `{error: {code, message, …}}`',
+	content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } }
+};
+
+export function openApiDocument(origin: string) {
+	const paths: Record<string, Record<string, unknown>> = {};
+	for (const [path, methods] of Object.entries(operations)) {
+		const item: Record<string, unknown> = {};
+		const parameters = [...path.matchAll(/\{(\w+)\}/g)].map(([, name]) => ({
+			name,
+			in: 'path',
+			required: true,
+			schema: { type: 'string' }
+		}));
+		for (const [method, op] of Object.entries(methods)) {
+			const query = op.query
+				? Object.keys(op.query.shape).map((name) => ({
+						name,
+						in: 'query',
+						schema: { type: 'string' }
+					}))
+				: [];
+			item[method] = {
+				summary: op.summary,
+				security: op.public ? [] : [{ session: [] }, { bearer: [] }],
+				parameters: [...parameters, ...query],
+				...(op.body && {
+					requestBody: {
+						required: true,
+						content: { 'application/json': { schema: jsonSchema(op.body) } }
+					}
+				}),
+				...(op.multipart && {
+					requestBody: {
+						required: true,
+						content: {
+							'multipart/form-data': {
+								schema: {
+									type: 'object',
+									required: ['file'],
+									properties: {
+										file: { type: 'string', format: 'binary' },
+										reason: { type: 'string' },
+										letter: { type: 'string' }
+									}
+								}
+							}
+						}
+					}
+				}),
+				responses: {
+					[op.success]: {
+						description: 'Success',
+						...(op.success !== 204 && {
+							content: { [op.produces ?? 'application/json']: {} }
+						})
+					},
+					default: errorResponse
+				}
+			};
+		}
+		paths[path] = item;
+	}
+	return {
+		openapi: '3.0.3',
+		info: {
+			title: 'Checkplate API',
+			version: '1',
+			description:
+				'Drawings, revisions, features, fits and findings of a team, and the tolerance calculator. Results are advisory: the governing standard, the organisation\u2019s drawing practice and a qualified checker decide.'
+		},
+		servers: [{ url: `${origin}/api/v1` }],
+		paths,
+		components: {
+			securitySchemes: {
+				session: { type: 'apiKey', in: 'cookie', name: 'authjs.session-token' },
+				bearer: { type: 'http', scheme: 'bearer', description: 'A personal API token' }
+			},
+			schemas: {
+				Error: {
+					type: 'object',
+					required: ['error'],
+					properties: {
+						error: {
+							type: 'object',
+							required: ['code', 'message'],
+							properties: {
+								code: { type: 'string' },
+								message: { type: 'string' },
+								position: { type: 'integer', description: 'For a bad callout' },
+								current: { type: 'object', description: 'For 409 stale' }
+							}
+						}
+					}
+				}
+			}
+		}
+	};
+}
