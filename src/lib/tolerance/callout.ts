@@ -288,7 +288,8 @@ function toleranceClass(s: Scanner, at: number): ToleranceClass | null {
 	if (isLetter(j < s.end ? text.charCodeAt(j) : -1)) return null;
 	s.pos = j;
 	return {
-		code: letters + grade,
+		// The code as written, in one piece (letters and grade are adjacent in the text).
+		code: text.slice(at, j),
 		deviation: letters,
 		grade,
 		feature: letters === upper ? 'hole' : 'shaft'

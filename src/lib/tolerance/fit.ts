@@ -4,15 +4,17 @@
  * temperature (PRODUCT.md §4). Exact Lengths; strings in the hole's unit.
  */
 import type { CalloutSpec } from './callout-types';
-import { mulDiv, parseDecimal, type Length, type Units } from './decimal';
+import { formatLength, mulDiv, parseDecimal, type Length, type Units } from './decimal';
 import {
 	evaluateFeature,
 	exactPlaces,
+	featureValues,
 	formatValue,
 	isSurfaceForm,
 	placesFor,
 	type FeatureError,
 	type FeatureEvaluation,
+	type FeatureValues,
 	type FeatureOverrides,
 	type GeneralTolerance,
 	type GeometricControl,
@@ -110,13 +112,14 @@ export interface FastenerBudget {
 	text: string;
 }
 
-export interface FitEvaluation {
+/** A fit's exact values and verdict: a FitEvaluation without the text, for callers that judge many. */
+export interface FitValues {
 	ok: true;
 	units: Units;
 	places: number;
 	intent: FitIntent | null;
-	hole: FeatureEvaluation;
-	shaft: FeatureEvaluation;
+	hole: FeatureValues;
+	shaft: FeatureValues;
 	memberKind: 'shaft' | 'fastener';
 	basicSize: Length | null;
 	minClearance: Length | null;
@@ -135,6 +138,11 @@ export interface FitEvaluation {
 		maxClearance: Length;
 		classification: FitClassification;
 	} | null;
+}
+
+export interface FitEvaluation extends FitValues {
+	hole: FeatureEvaluation;
+	shaft: FeatureEvaluation;
 	text: {
 		minClearance: string | null;
 		maxClearance: string | null;
@@ -155,12 +163,14 @@ export interface FitEvaluation {
 
 export type FitResult = FitEvaluation | FitError;
 
+/** A member's values, with its text when `text` is set (then a FeatureEvaluation). */
 function member(
 	input: FitMemberInput,
 	internal: boolean,
-	fit: FitInput
-): FeatureEvaluation | FeatureError {
-	return evaluateFeature({
+	fit: FitInput,
+	text: boolean
+): FeatureValues | FeatureError {
+	return (text ? evaluateFeature : featureValues)({
 		callout: input.callout,
 		spec: input.spec,
 		internal,
@@ -174,59 +184,66 @@ function member(
 }
 
 /** A bought fastener's MMC: its largest size. A thread counts at its nominal major diameter. */
-function fastenerMember(f: FastenerInput, fit: FitInput): FeatureEvaluation | FeatureError {
-	const e = evaluateFeature({
+function fastenerMember(
+	f: FastenerInput,
+	fit: FitInput,
+	text: boolean
+): FeatureValues | FeatureError {
+	const e = (text ? evaluateFeature : featureValues)({
 		callout: f.callout,
 		internal: false,
 		units: f.units ?? fit.units,
 		standard: fit.standard
 	});
 	if (!e.ok || e.spec.kind !== 'thread' || !e.spec.thread) return e;
+	// The evaluation is ours alone, so it is changed in place (a copy by spread is slow).
 	const major = e.spec.thread.diameter.value;
-	return {
-		...e,
-		upper: major,
-		lower: major,
-		tolerance: 0,
-		mmc: major,
-		lmc: major,
-		limitsSource: 'callout',
-		limitsNote: 'thread: counted at its nominal major diameter',
-		text: {
-			...e.text,
-			upper: formatValue(major, e.units, e.places),
-			lower: formatValue(major, e.units, e.places),
-			mmc: formatValue(major, e.units, e.places),
-			lmc: formatValue(major, e.units, e.places),
-			tolerance: formatValue(0, e.units, e.places)
-		}
-	};
+	e.upper = major;
+	e.lower = major;
+	e.tolerance = 0;
+	e.mmc = major;
+	e.lmc = major;
+	e.limitsSource = 'callout';
+	e.limitsNote = 'thread: counted at its nominal major diameter';
+	if (text) {
+		const t = (e as FeatureEvaluation).text;
+		t.upper = formatValue(major, e.units, e.places);
+		t.lower = formatValue(major, e.units, e.places);
+		t.mmc = formatValue(major, e.units, e.places);
+		t.lmc = formatValue(major, e.units, e.places);
+		t.tolerance = formatValue(0, e.units, e.places);
+	}
+	return e;
 }
 
 /** The smallest a hole's mating envelope can be, and the largest a shaft's, from its boundaries. */
-function matingBoundary(f: FeatureEvaluation): {
+function matingBoundary(f: FeatureValues): {
 	mmcSide: Length | null;
 	lmcSide: Length | null;
 	controlled: boolean;
 } {
-	const mmcSide: Length[] = [];
-	const lmcSide: Length[] = [];
+	// A hole's mating envelope is bounded by the smallest of its MMC-side values and the largest
+	// of its LMC-side ones; a shaft's the other way round.
+	let mmcSide: Length | null = null;
+	let lmcSide: Length | null = null;
 	let controlled = false;
-	for (const c of f.controls) {
+	for (let i = 0; i < f.controls.length; i++) {
+		const c = f.controls[i];
 		if (!c.boundaries || isSurfaceForm(c.control)) continue;
 		controlled = true;
-		mmcSide.push(f.internal ? c.boundaries.innerBoundary : c.boundaries.outerBoundary);
-		lmcSide.push(f.internal ? c.boundaries.outerBoundary : c.boundaries.innerBoundary);
+		const { innerBoundary, outerBoundary } = c.boundaries;
+		mmcSide = bound(mmcSide, f.internal ? innerBoundary : outerBoundary, f.internal);
+		lmcSide = bound(lmcSide, f.internal ? outerBoundary : innerBoundary, !f.internal);
 	}
-	if (f.envelope.applies && f.mmc !== null) mmcSide.push(f.mmc);
-	if (f.lmc !== null) lmcSide.push(f.lmc);
-	const pick = (values: Length[], smallest: boolean) =>
-		values.length === 0 ? null : values.reduce((a, b) => (smallest === a < b ? a : b));
-	return {
-		mmcSide: pick(mmcSide, f.internal),
-		lmcSide: pick(lmcSide, !f.internal),
-		controlled
-	};
+	if (f.envelope.applies && f.mmc !== null) mmcSide = bound(mmcSide, f.mmc, f.internal);
+	if (f.lmc !== null) lmcSide = bound(lmcSide, f.lmc, !f.internal);
+	return { mmcSide, lmcSide, controlled };
+}
+
+/** The smaller (or larger) of a running bound and a value; the earlier one on a tie. */
+function bound(so: Length | null, value: Length, smallest: boolean): Length {
+	if (so === null) return value;
+	return smallest === so < value ? so : value;
 }
 
 function readLength(text: string | undefined, units: Units): Length | null | undefined {
@@ -253,18 +270,27 @@ function readScaled(text: string): bigint | null {
 	return v === null ? null : BigInt(v.value);
 }
 
+/** A clearance in the hole's unit with at least the hole's places, more where it needs them. */
+function clearanceText(value: Length, units: Units, places: number): string {
+	return formatLength(value, units, Math.max(places, exactPlaces(value, units)));
+}
+
 function defaultChecks(
 	intent: FitIntent | null,
 	minC: Length | null,
 	maxC: Length | null,
-	fmt: (v: Length) => string
+	units: Units,
+	places: number
 ): FitCheck[] {
 	const checks: FitCheck[] = [];
 	if (intent === 'running') {
 		checks.push({
 			what: 'running fit: minimum clearance above zero',
 			ok: minC !== null && minC > 0,
-			text: minC === null ? 'minimum clearance unknown' : `minimum clearance ${fmt(minC)}`
+			text:
+				minC === null
+					? 'minimum clearance unknown'
+					: `minimum clearance ${clearanceText(minC, units, places)}`
 		});
 	} else if (
 		intent === 'locational-clearance' ||
@@ -274,21 +300,27 @@ function defaultChecks(
 		checks.push({
 			what: 'clearance fit: minimum clearance not below zero',
 			ok: minC !== null && minC >= 0,
-			text: minC === null ? 'minimum clearance unknown' : `minimum clearance ${fmt(minC)}`
+			text:
+				minC === null
+					? 'minimum clearance unknown'
+					: `minimum clearance ${clearanceText(minC, units, places)}`
 		});
 	} else if (intent === 'interference') {
 		checks.push({
 			what: 'interference fit: maximum clearance not above zero',
 			ok: maxC !== null && maxC <= 0,
-			text: maxC === null ? 'maximum clearance unknown' : `maximum clearance ${fmt(maxC)}`
+			text:
+				maxC === null
+					? 'maximum clearance unknown'
+					: `maximum clearance ${clearanceText(maxC, units, places)}`
 		});
 	}
 	return checks;
 }
 
 function fastenerBudget(
-	hole: FeatureEvaluation,
-	fastener: FeatureEvaluation,
+	hole: FeatureValues,
+	fastener: FeatureValues,
 	input: FastenerInput | undefined,
 	intent: FitIntent,
 	units: Units
@@ -368,18 +400,35 @@ function fastenerBudget(
 	};
 }
 
+/**
+ * Clearances, classification and verdict of one fit, without the text: what evaluateFit works
+ * out, for callers that judge many fits. The members come back as FeatureValues. Never throws.
+ */
+export function fitValues(input: FitInput): FitValues | FitError {
+	return fitWith(input, false);
+}
+
 /** Clearances, classification and verdict of one fit. Never throws. */
 export function evaluateFit(input: FitInput): FitResult {
-	const hole = member(input.hole, true, input);
+	const values = fitWith(input, true);
+	if (!values.ok) return values;
+	// The members were evaluated with their text; the fit's joins the values in place, last.
+	const e = values as FitEvaluation;
+	e.text = fitText(e);
+	return e;
+}
+
+function fitWith(input: FitInput, text: boolean): FitValues | FitError {
+	const hole = member(input.hole, true, input, text);
 	if (!hole.ok) return { ...hole, member: 'hole' };
-	let shaft: FeatureEvaluation | FeatureError;
+	let shaft: FeatureValues | FeatureError;
 	let memberKind: 'shaft' | 'fastener';
 	if (input.shaft) {
-		shaft = member(input.shaft, false, input);
+		shaft = member(input.shaft, false, input, text);
 		memberKind = 'shaft';
 		if (!shaft.ok) return { ...shaft, member: 'shaft' };
 	} else if (input.fastener) {
-		shaft = fastenerMember(input.fastener, input);
+		shaft = fastenerMember(input.fastener, input, text);
 		memberKind = 'fastener';
 		if (!shaft.ok) return { ...shaft, member: 'fastener' };
 	} else {
@@ -419,9 +468,8 @@ export function evaluateFit(input: FitInput): FitResult {
 		units,
 		hole.places
 	);
-	const fmt = (v: Length) =>
-		formatValue(v, units, Math.max(hole.places, exactPlaces(v, units))) as string;
-	const checks = defaultChecks(intent, minClearance, maxClearance, fmt);
+	const hp = hole.places;
+	const checks = defaultChecks(intent, minClearance, maxClearance, units, hp);
 	const reqMin = readLength(input.requiredMinClearance, units);
 	if (reqMin === null)
 		return {
@@ -442,22 +490,22 @@ export function evaluateFit(input: FitInput): FitResult {
 		};
 	if (reqMin !== undefined) {
 		checks.push({
-			what: `minimum clearance at least ${fmt(reqMin)}`,
+			what: `minimum clearance at least ${clearanceText(reqMin, units, hp)}`,
 			ok: minClearance !== null && minClearance >= reqMin,
 			text:
 				minClearance === null
 					? 'minimum clearance unknown'
-					: `minimum clearance ${fmt(minClearance)}`
+					: `minimum clearance ${clearanceText(minClearance, units, hp)}`
 		});
 	}
 	if (reqMax !== undefined) {
 		checks.push({
-			what: `maximum clearance at most ${fmt(reqMax)}`,
+			what: `maximum clearance at most ${clearanceText(reqMax, units, hp)}`,
 			ok: maxClearance !== null && maxClearance <= reqMax,
 			text:
 				maxClearance === null
 					? 'maximum clearance unknown (a limit is open)'
-					: `maximum clearance ${fmt(maxClearance)}`
+					: `maximum clearance ${clearanceText(maxClearance, units, hp)}`
 		});
 	}
 	if (hb.controlled || sb.controlled) {
@@ -477,7 +525,7 @@ export function evaluateFit(input: FitInput): FitResult {
 				text:
 					minClearanceAtBoundary === null
 						? (boundaryNote ?? 'boundary unknown')
-						: `minimum clearance at the boundaries ${fmt(minClearanceAtBoundary)}`
+						: `minimum clearance at the boundaries ${clearanceText(minClearanceAtBoundary, units, hp)}`
 			});
 		}
 	}
@@ -491,7 +539,7 @@ export function evaluateFit(input: FitInput): FitResult {
 			checks.push({
 				what: fastener.text,
 				ok: fastener.ok,
-				text: `H − F = ${fmt(fastener.available)}${fastener.used !== null ? `, position tolerance ${fmt(fastener.used)}` : ''}${fastener.required !== null ? `, hole needed ${fmt(fastener.required)}` : ''}`
+				text: `H − F = ${clearanceText(fastener.available, units, hp)}${fastener.used !== null ? `, position tolerance ${clearanceText(fastener.used, units, hp)}` : ''}${fastener.required !== null ? `, hole needed ${clearanceText(fastener.required, units, hp)}` : ''}`
 			});
 		}
 	}
@@ -527,15 +575,7 @@ export function evaluateFit(input: FitInput): FitResult {
 		}
 	}
 
-	const verdict =
-		checks.length === 0 ? 'undetermined' : checks.every((c) => c.ok) ? 'pass' : 'fail';
-	const sf = (v: Length | null) =>
-		formatValue(
-			v,
-			units,
-			placesFor([v], units, shaft.units === units ? shaft.places : hole.places)
-		);
-	const cf = (v: Length | null) => (v === null ? null : fmt(v));
+	const verdict = checks.length === 0 ? 'undetermined' : allPass(checks) ? 'pass' : 'fail';
 	return {
 		ok: true,
 		units,
@@ -554,29 +594,47 @@ export function evaluateFit(input: FitInput): FitResult {
 		checks,
 		verdict,
 		fastener,
-		temperature,
-		text: {
-			minClearance: cf(minClearance),
-			maxClearance: cf(maxClearance),
-			minClearanceAtBoundary: cf(minClearanceAtBoundary),
-			maxClearanceAtBoundary: cf(maxClearanceAtBoundary),
-			hole: { upper: hole.text.upper, lower: hole.text.lower },
-			shaft: { upper: sf(shaft.upper), lower: sf(shaft.lower) },
-			temperature: temperature
-				? {
-						minClearance: fmt(temperature.minClearance),
-						maxClearance: fmt(temperature.maxClearance)
-					}
-				: null,
-			fastener: fastener
-				? {
-						H: fmt(fastener.H),
-						F: fmt(fastener.F),
-						available: fmt(fastener.available),
-						used: cf(fastener.used),
-						required: cf(fastener.required)
-					}
-				: null
-		}
+		temperature
 	};
+}
+
+function fitText(e: FitEvaluation): FitEvaluation['text'] {
+	const { units, hole, shaft, temperature, fastener } = e;
+	const hp = hole.places;
+	const sp = shaft.units === units ? shaft.places : hp;
+	return {
+		minClearance: clearanceOrNull(e.minClearance, units, hp),
+		maxClearance: clearanceOrNull(e.maxClearance, units, hp),
+		minClearanceAtBoundary: clearanceOrNull(e.minClearanceAtBoundary, units, hp),
+		maxClearanceAtBoundary: clearanceOrNull(e.maxClearanceAtBoundary, units, hp),
+		hole: { upper: hole.text.upper, lower: hole.text.lower },
+		shaft: {
+			upper: formatValue(shaft.upper, units, placesFor([shaft.upper], units, sp)),
+			lower: formatValue(shaft.lower, units, placesFor([shaft.lower], units, sp))
+		},
+		temperature: temperature
+			? {
+					minClearance: clearanceText(temperature.minClearance, units, hp),
+					maxClearance: clearanceText(temperature.maxClearance, units, hp)
+				}
+			: null,
+		fastener: fastener
+			? {
+					H: clearanceText(fastener.H, units, hp),
+					F: clearanceText(fastener.F, units, hp),
+					available: clearanceText(fastener.available, units, hp),
+					used: clearanceOrNull(fastener.used, units, hp),
+					required: clearanceOrNull(fastener.required, units, hp)
+				}
+			: null
+	};
+}
+
+function allPass(checks: FitCheck[]): boolean {
+	for (let i = 0; i < checks.length; i++) if (!checks[i].ok) return false;
+	return true;
+}
+
+function clearanceOrNull(value: Length | null, units: Units, places: number): string | null {
+	return value === null ? null : clearanceText(value, units, places);
 }

@@ -74,6 +74,21 @@ function sizeText(text: string | null): string {
 	return text === null ? '' : `${text} mm`;
 }
 
+// The tables as Lengths, read from their text once, on first use: a table's bounds (keyed by
+// its upTo column) and each class's column of values.
+const boundsRead = new WeakMap<readonly (string | null)[], (Length | null)[]>();
+const valuesRead = new WeakMap<readonly (string | null)[], (Length | null)[]>();
+const startsRead = new Map<string, Length>();
+
+function lengths(column: readonly (string | null)[], read: typeof boundsRead): (Length | null)[] {
+	let values = read.get(column);
+	if (values === undefined) {
+		values = column.map((text) => (text === null ? null : mm(text)));
+		read.set(column, values);
+	}
+	return values;
+}
+
 /** Index of the range holding `size`, or a reason. */
 function locate(
 	upTo: readonly (string | null)[],
@@ -83,7 +98,8 @@ function locate(
 ): { index: number; range: SizeRange } | NotCovered {
 	if (!Number.isSafeInteger(size))
 		return { ok: false, reason: `not covered: ${what} is not a length` };
-	const start = mm(from);
+	let start = startsRead.get(from);
+	if (start === undefined) startsRead.set(from, (start = mm(from)));
 	if (start > 0 ? size < start : size <= 0) {
 		return {
 			ok: false,
@@ -93,15 +109,16 @@ function locate(
 					: `not covered: ${what} needs a length above 0`
 		};
 	}
-	for (let i = 0; i < upTo.length; i++) {
-		const bound = upTo[i];
-		if (bound === null || size <= mm(bound)) {
+	const bounds = lengths(upTo, boundsRead);
+	for (let i = 0; i < bounds.length; i++) {
+		const bound = bounds[i];
+		if (bound === null || size <= bound) {
 			return {
 				index: i,
 				range: {
-					over: i === 0 ? start : mm(upTo[i - 1] as string),
+					over: i === 0 ? start : (bounds[i - 1] as Length),
 					fromInclusive: i === 0 && start > 0,
-					upTo: bound === null ? null : mm(bound)
+					upTo: bound
 				}
 			};
 		}
@@ -117,16 +134,18 @@ function lookup<C extends string>(
 	cls: C,
 	size: Length,
 	what: string
-): { published: string; range: SizeRange } | NotCovered {
+): { published: string; value: Length; range: SizeRange } | NotCovered {
 	const at = locate(table.upTo, table.from, size, what);
 	if ('ok' in at) return at;
-	const published = table.values[cls][at.index];
+	const column = table.values[cls];
+	const published = column[at.index];
 	if (published === null) {
 		const { range } = at;
 		const span = ` ${formatBound(range)}`;
 		return { ok: false, reason: `not covered: ${what} has no class ${cls} value${span}` };
 	}
-	return { published, range: at.range };
+	const value = lengths(column, valuesRead)[at.index] as Length;
+	return { published, value, range: at.range };
 }
 
 function formatBound(range: SizeRange): string {
@@ -147,7 +166,7 @@ export function generalLinearTolerance(size: Length, cls: LinearClass): GeneralL
 	if (bad) return bad;
 	const r = lookup(LINEAR, cls, size, 'ISO 2768-1 table 1 (linear sizes)');
 	if ('ok' in r) return r;
-	return { ok: true, deviation: mm(r.published), published: r.published, range: r.range };
+	return { ok: true, deviation: r.value, published: r.published, range: r.range };
 }
 
 /** ISO 2768-1 table 2: ± deviation for a broken edge (external radius or chamfer height). */
@@ -156,7 +175,7 @@ export function brokenEdgeTolerance(size: Length, cls: LinearClass): GeneralLine
 	if (bad) return bad;
 	const r = lookup(BROKEN_EDGES, cls, size, 'ISO 2768-1 table 2 (broken edges)');
 	if ('ok' in r) return r;
-	return { ok: true, deviation: mm(r.published), published: r.published, range: r.range };
+	return { ok: true, deviation: r.value, published: r.published, range: r.range };
 }
 
 function angleText(minutes: number): string {
@@ -190,7 +209,7 @@ function geometric(
 	if ('ok' in r) return r;
 	return {
 		ok: true,
-		tolerance: mm(r.published),
+		tolerance: r.value,
 		published: r.published,
 		range: r.range,
 		withdrawn: true,

@@ -102,13 +102,56 @@ function outOfRange(size: Length): NotDefined | null {
 	return null;
 }
 
+const MAIN_BOUNDS: readonly Length[] = MAIN_RANGES_MM.map((upTo) => upTo * PER_MM);
+
 function mainRangeIndex(size: Length): number {
-	return MAIN_RANGES_MM.findIndex((upTo) => size <= upTo * PER_MM);
+	for (let i = 0; i < MAIN_BOUNDS.length; i++) if (size <= MAIN_BOUNDS[i]) return i;
+	return -1;
 }
 
-/** The step value for a size, or undefined when the column ends below it, null when blank. */
-function stepAt(steps: Steps, size: Length): number | null | undefined {
-	for (const [upTo, value] of steps) if (size <= upTo * PER_MM) return value;
+// Tables 1 and 3 as Lengths, read from their text once, on first use.
+let standardTolerances: (Length | null)[][] | null = null;
+let deltas: Length[][] | null = null;
+
+function standardToleranceAt(range: number, gradeIndex: number): Length | null {
+	standardTolerances ??= STANDARD_TOLERANCES.map((row) =>
+		row.map((text) => (text === null ? null : micrometres(text)))
+	);
+	return standardTolerances[range][gradeIndex];
+}
+
+function deltaAt(range: number, column: number): Length {
+	deltas ??= DELTA.map((row) => row.map(micrometres));
+	return deltas[range][column];
+}
+
+const GRADE_INDEX = new Map<string, number>(GRADES.map((g, i) => [g, i]));
+
+/** A column of table 2 or 3 as Lengths: range bounds and the deviation in each range. */
+interface Column {
+	bounds: Length[];
+	values: (Length | null)[];
+}
+
+// Each column is converted to Lengths once, on first use.
+const columns = new WeakMap<Steps, Column>();
+
+function columnOf(steps: Steps): Column {
+	let column = columns.get(steps);
+	if (column === undefined) {
+		column = {
+			bounds: steps.map(([upTo]) => upTo * PER_MM),
+			values: steps.map(([, value]) => (value === null ? null : value * PER_MICROMETRE))
+		};
+		columns.set(steps, column);
+	}
+	return column;
+}
+
+/** The deviation for a size, or undefined when the column ends below it, null when blank. */
+function stepAt(steps: Steps, size: Length): Length | null | undefined {
+	const { bounds, values } = columnOf(steps);
+	for (let i = 0; i < bounds.length; i++) if (size <= bounds[i]) return values[i];
 	return undefined;
 }
 
@@ -118,8 +161,10 @@ export function parseGrade(text: string): Grade | null {
 }
 
 function gradeNumber(grade: Grade): number {
-	// IT01 → -1, IT0 → 0, IT1 → 1 …
-	return grade === 'IT01' ? -1 : Number(grade.slice(2));
+	// IT01 → -1, IT0 → 0, IT1 → 1 …, read from the digits without making a substring.
+	const tens = grade.charCodeAt(2) - 48;
+	if (grade.length === 3) return tens;
+	return tens === 0 ? -1 : tens * 10 + grade.charCodeAt(3) - 48;
 }
 
 /** ISO 286-1 table 1: the standard tolerance of a grade at a nominal size. */
@@ -127,7 +172,10 @@ export function standardTolerance(
 	size: Length,
 	grade: Grade | string | number
 ): { ok: true; value: Length; grade: Grade } | NotDefined {
-	const g = parseGrade(String(grade));
+	const g =
+		typeof grade === 'string' && GRADE_INDEX.has(grade)
+			? (grade as Grade)
+			: parseGrade(String(grade));
 	if (g === null) return { ok: false, reason: `not defined: no standard tolerance grade ${grade}` };
 	const bad = outOfRange(size);
 	if (bad) return bad;
@@ -135,25 +183,34 @@ export function standardTolerance(
 	if (n >= 14 && size <= PER_MM) {
 		return { ok: false, reason: `not defined: ${g} is not used for sizes up to 1 mm` };
 	}
-	const text = STANDARD_TOLERANCES[mainRangeIndex(size)][GRADES.indexOf(g)];
-	if (text === null) {
+	const value = standardToleranceAt(mainRangeIndex(size), n + 1);
+	if (value === null) {
 		return { ok: false, reason: `not defined: ${g} is not tabulated above 500 mm` };
 	}
-	return { ok: true, value: micrometres(text), grade: g };
+	return { ok: true, value, grade: g };
 }
 
 /** ISO 286-1 table 3: Δ for grades IT3 to IT8, sizes up to 500 mm. */
 function delta(size: Length, grade: Grade): Length | null {
 	const n = gradeNumber(grade);
 	if (n < 3 || n > 8 || size > SIZE_500) return null;
-	return micrometres(DELTA[mainRangeIndex(size)][n - 3]);
+	return deltaAt(mainRangeIndex(size), n - 3);
 }
 
 const CODE = /^([A-Za-z]{1,2})(01|0|[1-9]|1[0-8])$/;
+const A_TO_H = ['a', 'b', 'c', 'cd', 'd', 'e', 'ef', 'f', 'fg', 'g', 'h'];
 
-export function parseIsoCode(
-	code: string
-): { letter: string; grade: Grade; internal: boolean } | null {
+interface IsoCode {
+	letter: string;
+	grade: Grade;
+	internal: boolean;
+	/** As written back: letter and grade number ('H7'). */
+	code: string;
+	/** Holes A–H and shafts a–h. */
+	aToH: boolean;
+}
+
+function readIsoCode(code: string): IsoCode | null {
 	const m = CODE.exec(code.trim());
 	if (!m) return null;
 	const letter = m[1];
@@ -161,7 +218,33 @@ export function parseIsoCode(
 	if (!(SHAFT_LETTERS as readonly string[]).includes(lower)) return null;
 	// 'Js' or 'jS' says neither hole nor shaft.
 	if (letter !== lower && letter !== letter.toUpperCase()) return null;
-	return { letter, grade: `IT${m[2]}` as Grade, internal: letter !== lower };
+	return {
+		letter,
+		grade: `IT${m[2]}` as Grade,
+		internal: letter !== lower,
+		code: `${letter}${m[2]}`,
+		aToH: A_TO_H.includes(lower)
+	};
+}
+
+// Codes read so far. Only valid codes written without spaces are kept, so it stays small
+// (at most one entry per letter and grade).
+const isoCodes = new Map<string, IsoCode>();
+
+function isoCode(code: string): IsoCode | null {
+	const known = isoCodes.get(code);
+	if (known !== undefined) return known;
+	const parsed = readIsoCode(code);
+	if (parsed !== null && parsed.code === code) isoCodes.set(code, parsed);
+	return parsed;
+}
+
+export function parseIsoCode(
+	code: string
+): { letter: string; grade: Grade; internal: boolean } | null {
+	const parsed = isoCode(code);
+	if (parsed === null) return null;
+	return { letter: parsed.letter, grade: parsed.grade, internal: parsed.internal };
 }
 
 type Deviation = { value: Length } | NotDefined;
@@ -170,8 +253,6 @@ const notDefined = (reason: string): NotDefined => ({
 	ok: false,
 	reason: `not defined: ${reason}`
 });
-
-const A_TO_H = ['a', 'b', 'c', 'cd', 'd', 'e', 'ef', 'f', 'fg', 'g', 'h'];
 
 /**
  * es for a–h (upper) or ei for j–zc (lower) of a shaft, from table 2. `shown` is the letter
@@ -191,16 +272,16 @@ function shaftFundamental(letter: string, size: Length, grade: Grade, shown = le
 				row === '8' ? 'j8 is tabulated up to 3 mm only' : 'j is not tabulated above 500 mm'
 			);
 		}
-		return { value: v * PER_MICROMETRE };
+		return { value: v };
 	}
 	if (letter === 'k') {
 		if (size > SIZE_500 || n < 4 || n > 7) return { value: 0 };
-		return { value: (stepAt(K_SHAFT_IT4_TO_IT7, size) as number) * PER_MICROMETRE };
+		return { value: stepAt(K_SHAFT_IT4_TO_IT7, size) as Length };
 	}
 	const v = stepAt(SHAFT_DEVIATIONS[letter], size);
 	if (v === undefined) return notDefined(`${shown} is not tabulated above ${lastBound(letter)} mm`);
 	if (v === null) return notDefined(`${shown} is not tabulated up to ${firstDefined(letter)} mm`);
-	return { value: v * PER_MICROMETRE };
+	return { value: v };
 }
 
 function lastBound(letter: string): number {
@@ -238,15 +319,15 @@ function holeFundamental(letter: string, size: Length, grade: Grade): Deviation 
 		if (row === null) return notDefined('J is tabulated for grades 6, 7 and 8 only');
 		const v = stepAt(J_HOLE[row], size);
 		if (v === undefined || v === null) return notDefined('J is not tabulated above 500 mm');
-		return { value: v * PER_MICROMETRE };
+		return { value: v };
 	}
 	if (letter === 'K' || letter === 'M' || letter === 'N') {
 		const ei =
 			letter === 'K'
 				? size > SIZE_500
 					? 0
-					: (stepAt(K_SHAFT_IT4_TO_IT7, size) as number) * PER_MICROMETRE
-				: (stepAt(SHAFT_DEVIATIONS[shaft], size) as number) * PER_MICROMETRE;
+					: (stepAt(K_SHAFT_IT4_TO_IT7, size) as Length)
+				: (stepAt(SHAFT_DEVIATIONS[shaft], size) as Length);
 		// Above 500 mm one value serves every grade and no Δ is added.
 		if (size > SIZE_500) return { value: -ei };
 		if (n <= 8) {
@@ -281,7 +362,7 @@ function holeFundamental(letter: string, size: Length, grade: Grade): Deviation 
 
 /** Limits of an ISO 286 tolerance class ('H7', 'g6', 'js5', 'ZC11') at a nominal size. */
 export function isoLimits(size: Length, code: string): IsoLimitsResult {
-	const parsed = parseIsoCode(code);
+	const parsed = isoCode(code);
 	if (parsed === null)
 		return { ok: false, reason: `not defined: '${code}' is not an ISO 286 tolerance class` };
 	const { letter, grade, internal } = parsed;
@@ -306,8 +387,7 @@ export function isoLimits(size: Length, code: string): IsoLimitsResult {
 		// + 0 turns a −0 from a negated zero into 0.
 		fundamentalDeviation = dev.value + 0;
 		// Holes A–H and shafts j–zc take the lower deviation as fundamental.
-		const aToH = A_TO_H.includes(letter.toLowerCase());
-		if (internal === aToH) {
+		if (internal === parsed.aToH) {
 			lowerDeviation = fundamentalDeviation;
 			upperDeviation = fundamentalDeviation + it;
 		} else {
@@ -317,7 +397,7 @@ export function isoLimits(size: Length, code: string): IsoLimitsResult {
 	}
 	return {
 		ok: true,
-		code: `${letter}${grade.slice(2)}`,
+		code: parsed.code,
 		letter,
 		grade,
 		internal,

@@ -4,14 +4,13 @@
  */
 import { parseCallout } from '../callout';
 import type { CalloutSpec } from '../callout-types';
-import type { Length, Units } from '../decimal';
+import { formatLength, type Length, type Units } from '../decimal';
 import {
 	effectiveStandard,
-	evaluateFeature,
-	formatValue,
+	exactPlaces,
+	featureValues,
 	isSurfaceForm,
-	placesFor,
-	type FeatureEvaluation,
+	type FeatureValues,
 	type GoverningStandard
 } from '../feature';
 import type { ResultValue, RulebookDrawing, RulebookFeature } from './types';
@@ -21,7 +20,8 @@ export interface FeatureContext {
 	index: number;
 	spec: CalloutSpec | null;
 	parseError: { message: string; position: number } | null;
-	evaluation: FeatureEvaluation | null;
+	/** The exact values only: the rules write their own text. */
+	evaluation: FeatureValues | null;
 	/** The callout was read and evaluated. */
 	ok: boolean;
 	standard: GoverningStandard;
@@ -52,7 +52,7 @@ export function featureContext(
 			? `${drawing.notes}\n${feature.notes}`
 			: feature.notes
 		: drawing.notes;
-	const evaluation = evaluateFeature({
+	const evaluation = featureValues({
 		spec,
 		internal: feature.internal,
 		units: drawing.units,
@@ -88,7 +88,7 @@ export class LengthFormat {
 
 /** A length in the feature's unit with enough places to show it exactly. */
 export function show(value: Length, units: Units, places: number): string {
-	return formatValue(value, units, placesFor([value], units, places)) as string;
+	return formatLength(value, units, Math.max(places, exactPlaces(value, units)));
 }
 
 export function value(name: string, length: Length | null, text: string): ResultValue {
@@ -108,8 +108,8 @@ export function memberWord(feature: RulebookFeature): string {
 }
 
 /** Controls that make a boundary for the mating envelope (not surface form controls). */
-export function boundingControls(e: FeatureEvaluation): FeatureEvaluation['controls'] {
-	const out: FeatureEvaluation['controls'] = [];
+export function boundingControls(e: FeatureValues): FeatureValues['controls'] {
+	const out: FeatureValues['controls'] = [];
 	for (const c of e.controls) if (c.boundaries !== null && !isSurfaceForm(c.control)) out.push(c);
 	return out;
 }

@@ -1,5 +1,5 @@
 import { ruleExplanation, defaultSeverity } from './catalogue';
-import type { ResultValue, RuleCode, RuleResult, RulebookTeam } from './types';
+import type { ResultValue, RuleCode, RuleResult, RulebookTeam, Severity } from './types';
 
 export interface Finding {
 	rule: RuleCode;
@@ -25,6 +25,26 @@ export function resultKey(rule: RuleCode, subject: Subject, cause: string): stri
 	return `${rule}|${id}|${cause}`;
 }
 
+// Clauses, and severities that do not depend on the cause, read from the catalogue once per rule.
+const clauses = new Map<string, string>();
+const fixedSeverities = new Map<string, Severity | null>();
+
+function clauseOf(rule: RuleCode): string {
+	let clause = clauses.get(rule);
+	if (clause === undefined) clauses.set(rule, (clause = ruleExplanation(rule)?.clause ?? ''));
+	return clause;
+}
+
+function severityOf(rule: RuleCode, cause: string): Severity {
+	let fixed = fixedSeverities.get(rule);
+	if (fixed === undefined) {
+		const explanation = ruleExplanation(rule);
+		fixed = explanation && !explanation.severities ? explanation.severity : null;
+		fixedSeverities.set(rule, fixed);
+	}
+	return fixed ?? defaultSeverity(rule, cause);
+}
+
 export function toResult(
 	finding: Finding,
 	subject: Subject,
@@ -33,8 +53,7 @@ export function toResult(
 	return {
 		key: resultKey(finding.rule, subject, finding.cause),
 		rule: finding.rule,
-		severity:
-			team?.severityOverrides?.[finding.rule] ?? defaultSeverity(finding.rule, finding.cause),
+		severity: team?.severityOverrides?.[finding.rule] ?? severityOf(finding.rule, finding.cause),
 		subject: subject.subject,
 		featureId: subject.featureId,
 		fitId: subject.fitId,
@@ -43,6 +62,6 @@ export function toResult(
 		values: finding.values,
 		line: finding.line,
 		fix: finding.fix,
-		clause: ruleExplanation(finding.rule)?.clause ?? ''
+		clause: clauseOf(finding.rule)
 	};
 }

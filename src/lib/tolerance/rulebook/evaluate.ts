@@ -150,25 +150,39 @@ interface ResolvedScope {
 	features: number[];
 	fits: number[];
 	/** Per feature position: the positions of the fits it is a member of, ascending. */
-	memberships: Map<number, number[]>;
+	memberships: { get(at: number): number[] | undefined };
+	/**
+	 * A full run's member positions, per fit: hole at 2i, shaft at 2i + 1, -1 for none or one
+	 * not found, so the fit pass need not look them up again. Null when limited by `only`.
+	 */
+	members: Int32Array | null;
 }
 
 function resolveScope(input: RulebookInput, lookup: Lookup): ResolvedScope {
 	const { features, fits, only } = input;
-	const memberships = new Map<number, number[]>();
 	if (!only) {
-		const all = features.map((_, i) => i);
+		// Arrays by position rather than maps: a full run touches every feature.
+		const byFeature: (number[] | undefined)[] = new Array(features.length);
+		const members = new Int32Array(2 * fits.length);
 		for (let i = 0; i < fits.length; i++) {
-			for (const id of [fits[i].holeFeatureId, fits[i].shaftFeatureId]) {
-				const at = id ? lookup.featurePosition(id) : null;
-				if (at === null) continue;
-				const list = memberships.get(at);
-				if (!list) memberships.set(at, [i]);
-				else if (list[list.length - 1] !== i) list.push(i);
-			}
+			const { holeFeatureId, shaftFeatureId } = fits[i];
+			// As the fit pass reads them: the hole's id as given, the shaft's only when there is one.
+			const hole = lookup.featurePosition(holeFeatureId);
+			const shaft = shaftFeatureId ? lookup.featurePosition(shaftFeatureId) : null;
+			members[2 * i] = hole ?? -1;
+			members[2 * i + 1] = shaft ?? -1;
+			if (holeFeatureId && hole !== null) addMembership(byFeature, hole, i);
+			if (shaft !== null) addMembership(byFeature, shaft, i);
 		}
-		return { drawing: true, features: all, fits: fits.map((_, i) => i), memberships };
+		return {
+			drawing: true,
+			features: positions(features.length),
+			fits: positions(fits.length),
+			memberships: { get: (at) => byFeature[at] },
+			members
+		};
 	}
+	const memberships = new Map<number, number[]>();
 	const touched = new Set<number>();
 	for (const id of only.featureIds ?? []) {
 		const at = lookup.featurePosition(id);
@@ -204,8 +218,22 @@ function resolveScope(input: RulebookInput, lookup: Lookup): ResolvedScope {
 		drawing: only.drawing === true,
 		features: [...featureSet].sort((a, b) => a - b),
 		fits: [...fitSet].sort((a, b) => a - b),
-		memberships
+		memberships,
+		members: null
 	};
+}
+
+function addMembership(byFeature: (number[] | undefined)[], at: number, fit: number): void {
+	const list = byFeature[at];
+	if (!list) byFeature[at] = [fit];
+	else if (list[list.length - 1] !== fit) list.push(fit);
+}
+
+/** 0, 1, …, n − 1. */
+function positions(n: number): number[] {
+	const out: number[] = new Array(n);
+	for (let i = 0; i < n; i++) out[i] = i;
+	return out;
 }
 
 /** Which subjects a run judges: everything, or what `only` names and what depends on it. */
@@ -219,10 +247,13 @@ export function scopeOf(input: RulebookInput): Scope {
 }
 
 function sortFindings(findings: Finding[]): Finding[] {
-	return findings.sort(
-		(a, b) =>
-			(RULE_ORDER.get(a.rule) as number) - (RULE_ORDER.get(b.rule) as number) ||
-			(a.cause < b.cause ? -1 : a.cause > b.cause ? 1 : 0)
+	return findings.length < 2 ? findings : findings.sort(inRuleOrder);
+}
+
+function inRuleOrder(a: Finding, b: Finding): number {
+	return (
+		(RULE_ORDER.get(a.rule) as number) - (RULE_ORDER.get(b.rule) as number) ||
+		(a.cause < b.cause ? -1 : a.cause > b.cause ? 1 : 0)
 	);
 }
 
@@ -309,10 +340,16 @@ export function evaluate(input: RulebookInput): RuleResult[] {
 
 	// Fits re-read their members from the callouts, so only whether each member could be read
 	// is kept between the two passes: holding every evaluation costs more in memory than it saves.
+	// A full run keeps them in an array by position, as it judges every feature.
 	const readable = new Map<number, boolean>();
+	const readableInFull: boolean[] | null = scope.members ? new Array(features.length) : null;
 	const readableAt = (at: number): boolean => {
-		let ok = readable.get(at);
-		if (ok === undefined) readable.set(at, (ok = featureContext(features[at], at, drawing).ok));
+		let ok = readableInFull ? readableInFull[at] : readable.get(at);
+		if (ok === undefined) {
+			ok = featureContext(features[at], at, drawing).ok;
+			if (readableInFull) readableInFull[at] = ok;
+			else readable.set(at, ok);
+		}
 		return ok;
 	};
 
@@ -341,14 +378,26 @@ export function evaluate(input: RulebookInput): RuleResult[] {
 			fitId: memberOf.length ? memberOf[0].fit.id : null
 		};
 		for (const finding of sortFindings(findings)) results.push(toResult(finding, subject, team));
-		if (memberOf.length) readable.set(at, ctx.ok);
+		if (memberOf.length) {
+			if (readableInFull) readableInFull[at] = ctx.ok;
+			else readable.set(at, ctx.ok);
+		}
 	}
 
 	for (const f of scope.fits) {
 		const fit = fits[f];
 		if (!fit.shaftFeatureId && !fit.fastener) continue;
-		const holeAt = lookup.featurePosition(fit.holeFeatureId);
-		const shaftAt = fit.shaftFeatureId ? lookup.featurePosition(fit.shaftFeatureId) : null;
+		let holeAt: number | null;
+		let shaftAt: number | null;
+		if (scope.members) {
+			const h = scope.members[2 * f];
+			const s = scope.members[2 * f + 1];
+			holeAt = h < 0 ? null : h;
+			shaftAt = s < 0 ? null : s;
+		} else {
+			holeAt = lookup.featurePosition(fit.holeFeatureId);
+			shaftAt = fit.shaftFeatureId ? lookup.featurePosition(fit.shaftFeatureId) : null;
+		}
 		if (holeAt === null || (fit.shaftFeatureId && shaftAt === null)) continue;
 		if (!readableAt(holeAt) || (shaftAt !== null && !readableAt(shaftAt))) continue;
 		const hole = features[holeAt];

@@ -216,7 +216,8 @@ function limitRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], f: Len
 				fix: `Write the class in ${feature.internal ? 'capitals' : 'small letters'} (${feature.internal ? cls.code.toUpperCase() : cls.code.toLowerCase()}).`
 			});
 		}
-		if (nominal !== null) {
+		// A class alone that gave the limits is defined and states nothing to compare with.
+		if (nominal !== null && !(spec.tolerance === null && e.limitsSource === 'iso286')) {
 			const iso = isoLimits(nominal, cls.code);
 			if (!iso.ok) {
 				classUndefined = true;
@@ -363,25 +364,23 @@ function geometricRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], th
 	const e = ctx.evaluation!;
 	const units = env.drawing.units;
 	const controls = ctx.feature.controls ?? [];
-	const causes = controls.length ? controlCauses(controls) : [];
 	const edition2009 = ctx.standard === 'asme-y14.5-2009';
+	// Only a finding needs the causes and words; most controls are fine.
+	let causes: string[] | null = null;
 	for (let i = 0; i < e.controls.length; i++) {
 		const ce = e.controls[i];
 		const c = ce.control;
-		// Only a finding needs the words; most controls are fine.
 		let t = '';
 		let name = '';
-		const words = () => {
-			t = show(ce.value, units, e.places);
-			name = characteristicWord(c.characteristic);
-		};
 		const modified = c.modifier !== 'rfs';
 		const surface =
 			NO_MATERIAL_MODIFIER.includes(c.characteristic) ||
 			isSurfaceForm(c) ||
 			(edition2009 && (c.characteristic === 'concentricity' || c.characteristic === 'symmetry'));
 		if (modified && surface) {
-			words();
+			t = show(ce.value, units, e.places);
+			name = characteristicWord(c.characteristic);
+			causes ??= controlCauses(controls);
 			out.push({
 				rule: 'GEO-02',
 				cause: causes[i],
@@ -391,7 +390,9 @@ function geometricRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], th
 				fix: `Remove the ${modifierSymbol(c.modifier).trim()}, or control the derived median line or axis instead.`
 			});
 		} else if (modified && !thread && (c.modifier === 'mmc' ? e.mmc === null : e.lmc === null)) {
-			words();
+			t = show(ce.value, units, e.places);
+			name = characteristicWord(c.characteristic);
+			causes ??= controlCauses(controls);
 			out.push({
 				rule: 'GEO-01',
 				cause: causes[i],
@@ -405,7 +406,9 @@ function geometricRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], th
 			});
 		}
 		if (ce.value === 0 && !modified) {
-			words();
+			t = show(ce.value, units, e.places);
+			name = characteristicWord(c.characteristic);
+			causes ??= controlCauses(controls);
 			out.push({
 				rule: 'GEO-03',
 				cause: causes[i],
@@ -423,7 +426,9 @@ function geometricRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[], th
 			else if (!env.datumLetters.has(letter)) missing.push(letter);
 		}
 		if (missing.length || forbidden.length) {
-			words();
+			t = show(ce.value, units, e.places);
+			name = characteristicWord(c.characteristic);
+			causes ??= controlCauses(controls);
 			const bad = [...forbidden, ...missing];
 			out.push({
 				rule: 'GEO-04',

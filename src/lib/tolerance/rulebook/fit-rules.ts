@@ -2,8 +2,8 @@
  * Rules judged on one fit (FIT-01…05), from ../fit.ts's evaluation of the pair.
  */
 import { parseDecimal, type Length, type Units } from '../decimal';
-import type { FeatureEvaluation } from '../feature';
-import { evaluateFit, type FitEvaluation, type FitIntent } from '../fit';
+import type { FeatureValues } from '../feature';
+import { fitValues, type FitIntent, type FitMemberInput, type FitValues } from '../fit';
 import { LengthFormat, boundingControls, memberWord, signed, value } from './context';
 import type { Finding } from './emit';
 import type { RulebookDrawing, RulebookFeature, RulebookFit } from './types';
@@ -41,7 +41,7 @@ function fails(clearance: Length, req: { value: Length; strict: boolean }): bool
 }
 
 /** The mating boundary on the MMC side and what it is, for the boundary check. */
-function mmcBoundary(e: FeatureEvaluation): { at: Length; what: string; bounded: boolean } | null {
+function mmcBoundary(e: FeatureValues): { at: Length; what: string; bounded: boolean } | null {
 	if (e.mmc === null) return null;
 	let at = e.mmc;
 	let what = 'MMC';
@@ -59,21 +59,31 @@ function mmcBoundary(e: FeatureEvaluation): { at: Length; what: string; bounded:
 	return { at, what, bounded };
 }
 
+/** Words for a member whose mating envelope nothing bounds on the MMC side. */
+function unbounded(b: { bounded: boolean }, e: FeatureValues): string {
+	return b.bounded
+		? ''
+		: ` (nothing bounds it; taken at its ${e.internal ? 'smallest' : 'largest'} size)`;
+}
+
+function memberInput(c: RulebookFeature, drawing: RulebookDrawing): FitMemberInput {
+	return {
+		callout: c.callout,
+		controls: c.controls,
+		overrides: c.overrides,
+		notes: c.notes ? (drawing.notes ? `${drawing.notes}\n${c.notes}` : c.notes) : drawing.notes
+	};
+}
+
 export function evaluateFitFor(
 	fit: RulebookFit,
 	hole: RulebookFeature,
 	shaft: RulebookFeature | null,
 	drawing: RulebookDrawing
 ) {
-	const member = (c: RulebookFeature) => ({
-		callout: c.callout,
-		controls: c.controls,
-		overrides: c.overrides,
-		notes: c.notes ? (drawing.notes ? `${drawing.notes}\n${c.notes}` : c.notes) : drawing.notes
-	});
-	return evaluateFit({
-		hole: member(hole),
-		shaft: shaft ? member(shaft) : undefined,
+	return fitValues({
+		hole: memberInput(hole, drawing),
+		shaft: shaft ? memberInput(shaft, drawing) : undefined,
 		fastener: fit.fastener
 			? {
 					callout: fit.fastener.callout,
@@ -92,7 +102,7 @@ export function evaluateFitFor(
 
 export function fitRules(
 	fit: RulebookFit,
-	r: FitEvaluation,
+	r: FitValues,
 	hole: RulebookFeature,
 	shaft: RulebookFeature | null,
 	out: Finding[]
@@ -108,20 +118,24 @@ export function fitRules(
 	let sizeFails = false;
 	if (req && r.minClearance !== null && r.hole.mmc !== null && r.shaft.mmc !== null) {
 		sizeFails = fails(r.minClearance, req);
-		if (sizeFails)
+		if (sizeFails) {
+			const holeMmc = f.show(r.hole.mmc);
+			const shaftMmc = f.show(r.shaft.mmc);
+			const clearance = f.show(r.minClearance);
 			out.push({
 				rule: 'FIT-01',
 				cause: 'min-clearance',
 				message: `The minimum clearance at MMC is below what ${intent} needs.`,
 				values: [
-					value(`MMC ${holeWord}`, r.hole.mmc, f.show(r.hole.mmc)),
-					value(`MMC ${shaftWord}`, r.shaft.mmc, f.show(r.shaft.mmc)),
-					value('minimum clearance', r.minClearance, f.show(r.minClearance)),
+					value(`MMC ${holeWord}`, r.hole.mmc, holeMmc),
+					value(`MMC ${shaftWord}`, r.shaft.mmc, shaftMmc),
+					value('minimum clearance', r.minClearance, clearance),
 					value('required', null, req.text)
 				],
-				line: `MMC ${holeWord} ${f.show(r.hole.mmc)} − MMC ${shaftWord} ${f.show(r.shaft.mmc)} = ${signed(f.show(r.minClearance))}, required ${req.text} for ${intent}`,
+				line: `MMC ${holeWord} ${holeMmc} − MMC ${shaftWord} ${shaftMmc} = ${signed(clearance)}, required ${req.text} for ${intent}`,
 				fix: `Open the ${holeWord} or reduce the ${shaftWord} so the MMCs leave the allowance ${intent} needs.`
 			});
+		}
 	}
 
 	// FIT-02: the boundaries, when geometric tolerances make them (fastener budgets are FIT-05's).
@@ -133,21 +147,20 @@ export function fitRules(
 		if (controlled && hb && sb) {
 			const c = hb.at - sb.at;
 			if (fails(c, req)) {
-				const why = (b: typeof hb, e: FeatureEvaluation) =>
-					b.bounded
-						? ''
-						: ` (nothing bounds it; taken at its ${e.internal ? 'smallest' : 'largest'} size)`;
+				const holeAt = f.show(hb.at);
+				const shaftAt = f.show(sb.at);
+				const clearance = f.show(c);
 				out.push({
 					rule: 'FIT-02',
 					cause: 'boundary',
 					message: `The fit fails at the boundaries its geometric tolerances make.`,
 					values: [
-						value(`${hb.what} ${holeWord}`, hb.at, f.show(hb.at)),
-						value(`${sb.what} ${shaftWord}`, sb.at, f.show(sb.at)),
-						value('clearance at the boundaries', c, f.show(c)),
+						value(`${hb.what} ${holeWord}`, hb.at, holeAt),
+						value(`${sb.what} ${shaftWord}`, sb.at, shaftAt),
+						value('clearance at the boundaries', c, clearance),
 						value('required', null, req.text)
 					],
-					line: `${hb.what} ${holeWord} ${f.show(hb.at)}${why(hb, r.hole)} − ${sb.what} ${shaftWord} ${f.show(sb.at)}${why(sb, r.shaft)} = ${signed(f.show(c))}, required ${req.text} for ${intent}`,
+					line: `${hb.what} ${holeWord} ${holeAt}${unbounded(hb, r.hole)} − ${sb.what} ${shaftWord} ${shaftAt}${unbounded(sb, r.shaft)} = ${signed(clearance)}, required ${req.text} for ${intent}`,
 					fix: 'Reduce the geometric tolerance (or make it zero at MMC), or increase the allowance between the sizes.'
 				});
 			}
@@ -157,33 +170,37 @@ export function fitRules(
 	// FIT-03 / FIT-04: the loose end.
 	const maxC = r.maxClearance;
 	if (maxC !== null && r.hole.lmc !== null && r.shaft.lmc !== null) {
-		const loose = `LMC ${holeWord} ${f.show(r.hole.lmc)} − LMC ${shaftWord} ${f.show(r.shaft.lmc)} = ${signed(f.show(maxC))}`;
-		const looseValues = [
-			value(`LMC ${holeWord}`, r.hole.lmc, f.show(r.hole.lmc)),
-			value(`LMC ${shaftWord}`, r.shaft.lmc, f.show(r.shaft.lmc)),
-			value('maximum clearance', maxC, f.show(maxC))
-		];
 		const interferenceFails = fit.intent === 'interference' && maxC > 0;
-		if (interferenceFails)
-			out.push({
-				rule: 'FIT-03',
-				cause: 'clearance',
-				message: `Meant as an interference fit, but the limits allow clearance (${r.classification} fit).`,
-				values: [...looseValues, value('classification', null, r.classification ?? '')],
-				line: `${loose}, required ≤ 0 for an interference fit: a ${r.classification} fit`,
-				fix: 'Choose a shaft position further from zero (r6, s6) or a tighter hole grade.'
-			});
 		const statedMax = fit.requiredMaxClearance?.trim();
 		const max = statedMax ? parseDecimal(statedMax, units) : null;
-		if (max && maxC > max.value && !interferenceFails)
-			out.push({
-				rule: 'FIT-04',
-				cause: 'max-clearance',
-				message: 'The maximum clearance is above the stated maximum.',
-				values: [...looseValues, value('stated maximum', max.value, statedMax!)],
-				line: `${loose}, stated maximum ${statedMax}`,
-				fix: 'Tighten one of the tolerances, or move the shaft position closer to zero.'
-			});
+		const maxFails = max !== null && maxC > max.value && !interferenceFails;
+		// Only a finding needs the words; most fits are fine.
+		if (interferenceFails || maxFails) {
+			const loose = `LMC ${holeWord} ${f.show(r.hole.lmc)} − LMC ${shaftWord} ${f.show(r.shaft.lmc)} = ${signed(f.show(maxC))}`;
+			const looseValues = [
+				value(`LMC ${holeWord}`, r.hole.lmc, f.show(r.hole.lmc)),
+				value(`LMC ${shaftWord}`, r.shaft.lmc, f.show(r.shaft.lmc)),
+				value('maximum clearance', maxC, f.show(maxC))
+			];
+			if (interferenceFails)
+				out.push({
+					rule: 'FIT-03',
+					cause: 'clearance',
+					message: `Meant as an interference fit, but the limits allow clearance (${r.classification} fit).`,
+					values: [...looseValues, value('classification', null, r.classification ?? '')],
+					line: `${loose}, required ≤ 0 for an interference fit: a ${r.classification} fit`,
+					fix: 'Choose a shaft position further from zero (r6, s6) or a tighter hole grade.'
+				});
+			if (maxFails)
+				out.push({
+					rule: 'FIT-04',
+					cause: 'max-clearance',
+					message: 'The maximum clearance is above the stated maximum.',
+					values: [...looseValues, value('stated maximum', max.value, statedMax!)],
+					line: `${loose}, stated maximum ${statedMax}`,
+					fix: 'Tighten one of the tolerances, or move the shaft position closer to zero.'
+				});
+		}
 	}
 
 	// FIT-05: the fastener budget.
