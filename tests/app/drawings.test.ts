@@ -90,6 +90,26 @@ describe('drawings', () => {
 		expect(body.error.current).toMatchObject({ title: 'Test plate, revised', version: 2 });
 	});
 
+	it('take inch title-block tolerances by any set of decimal places', async () => {
+		const number = newNumber();
+		const created = await drafter.api('POST', '/teams/kestrel/drawings', {
+			...drawing(number),
+			units: 'in',
+			standard: 'asme-y14.5-2018',
+			generalTolerance: {
+				kind: 'decimal-places',
+				byPlaces: { '2': '0.01', '3': '0.005' },
+				angle: '0.5'
+			}
+		});
+		expect(created.status).toBe(201);
+		expect((await created.json()).generalTolerance).toEqual({
+			kind: 'decimal-places',
+			byPlaces: { '2': '0.01', '3': '0.005' },
+			angle: '0.5'
+		});
+	});
+
 	it('refuses a bad drawing with a clear message and changes nothing', async () => {
 		const bad = await drafter.api('POST', '/teams/kestrel/drawings', {
 			...drawing('bad number with spaces'),

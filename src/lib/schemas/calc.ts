@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { generalToleranceInput } from './drawings';
 import type { GoverningStandard } from '$lib/tolerance/feature';
 import { FIT_INTENTS, type FitIntent } from '$lib/tolerance/fit';
 
@@ -54,21 +55,8 @@ const geometric = z
 	.union([geometricControl, z.array(geometricControl).max(10)])
 	.transform((g) => (Array.isArray(g) ? g : [g]));
 
-export const generalTolerance = z
-	.discriminatedUnion('kind', [
-		z.object({
-			kind: z.literal('iso2768'),
-			linear: z.enum(['f', 'm', 'c', 'v']),
-			geometric: z.enum(['H', 'K', 'L']).optional(),
-			envelope: z.boolean().optional()
-		}),
-		z.object({
-			kind: z.literal('decimal-places'),
-			byPlaces: z.record(z.string().regex(/^\d$/), z.string().trim().min(1).max(20)),
-			angle: z.string().trim().max(20).optional()
-		})
-	])
-	.nullable();
+// The drawing's own general-tolerance shape (PRODUCT.md §6), validated the same way.
+export const generalTolerance = generalToleranceInput;
 
 export const overrides = z
 	.object({

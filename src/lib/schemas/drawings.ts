@@ -13,7 +13,11 @@ export const generalToleranceInput = z
 		}),
 		z.object({
 			kind: z.literal('decimal-places'),
-			byPlaces: z.record(z.enum(['0', '1', '2', '3', '4', '5']), decimalText),
+			// Keys are numbers of decimal places; any subset of them may be given.
+			byPlaces: z.record(
+				z.string().regex(/^[0-6]$/, { error: 'Places run from 0 to 6' }),
+				decimalText
+			),
 			angle: decimalText.optional()
 		})
 	])

@@ -150,7 +150,8 @@ export interface FeatureEvaluation extends FeatureValues {
 export type FeatureResult = FeatureEvaluation | FeatureError;
 
 const PERFECT_FORM_NOTE = /PERFECT\s+FORM\s+AT\s+MMC\s+NOT\s+REQ(?:UIRE)?D/i;
-const ISO_ONLY_MODIFIERS: readonly Modifier[] = [
+/** Size modifiers only ISO GPS has (Ⓔ of ISO 14405-1 and its other size specifications). */
+export const ISO_ONLY_MODIFIERS: readonly Modifier[] = [
 	'envelope',
 	'twoPointSize',
 	'sphereSize',

@@ -5,7 +5,13 @@
  */
 import type { Tolerance } from '../callout-types';
 import { parseDecimal, roundToPlaces, type Length } from '../decimal';
-import { isAsme, isSurfaceForm, type Characteristic, type GeometricControl } from '../feature';
+import {
+	ISO_ONLY_MODIFIERS,
+	isAsme,
+	isSurfaceForm,
+	type Characteristic,
+	type GeometricControl
+} from '../feature';
 import { isoLimits, standardTolerance } from '../iso286';
 import {
 	LengthFormat,
@@ -52,17 +58,7 @@ const NO_MATERIAL_MODIFIER: readonly Characteristic[] = [
 	'profile-of-a-line',
 	'profile-of-a-surface'
 ];
-const ISO_SIZE_MODIFIERS = new Set([
-	'envelope',
-	'twoPointSize',
-	'sphereSize',
-	'leastSquaresSize',
-	'maximumInscribedSize',
-	'minimumCircumscribedSize',
-	'circumferenceDiameter',
-	'areaDiameter',
-	'volumeDiameter'
-]);
+const ISO_SIZE_MODIFIERS = new Set<string>(ISO_ONLY_MODIFIERS);
 
 function zeroWidthMessage(message: string): boolean {
 	return /equal|no tolerance/i.test(message);
