@@ -142,6 +142,8 @@ app.once('exit', (code) => {
 });
 process.once('SIGINT', () => void stop(0));
 process.once('SIGTERM', () => void stop(0));
+// A closed terminal must not leave the app holding the data directory.
+process.once('SIGHUP', () => void stop(0));
 
 const url = env.ORIGIN;
 for (let i = 0; i < 300 && !stopping; i++) {
