@@ -4,7 +4,9 @@ import { join } from 'node:path';
 
 export const baseUrl = inject('baseUrl');
 export const dataDir = inject('dataDir');
-export const demoPassword = 'demo-password-for-tests';
+import { demoPassword } from '../e2e/browser';
+
+export { demoPassword };
 
 /** A minimal browser stand-in: keeps cookies, sends same-origin form posts like `use:enhance`. */
 export class Client {

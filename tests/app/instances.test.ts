@@ -1,10 +1,10 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { findPostgresBin, startPostgres } from '../../scripts/postgres.js';
+import { demoPassword } from '../e2e/browser';
 import { freePort } from '../e2e/global-setup';
 import { startFakes, tempDir } from '../integration/harness';
 
-const demoPassword = 'demo-password-for-tests';
 const authSecret = 'one-secret-shared-by-every-instance-0123456789';
 
 interface Instance {

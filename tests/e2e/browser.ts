@@ -44,3 +44,15 @@ export function watchOutsideRequests(page: Page, baseUrl: string): string[] {
 export async function screenshot(page: Page, name: string) {
 	await page.screenshot({ path: `${artifactsDir}/${name}.png`, fullPage: true });
 }
+
+/** The demo users' password in test runs (set by global-setup.ts). */
+export const demoPassword = 'demo-password-for-tests';
+
+/** Signs a demo user in through the sign-in page, as a person would. */
+export async function signIn(page: Page, baseUrl: string, email: string) {
+	await page.goto(`${baseUrl}/signin`);
+	await page.getByLabel('E-mail').fill(email);
+	await page.getByLabel('Password').fill(demoPassword);
+	await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+	await page.getByRole('heading', { name: 'Your teams' }).waitFor();
+}

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { twoSheetPdf } from '../fixtures/pdfs';
-import { launchBrowser, screenshot, watchOutsideRequests } from './browser';
+import { launchBrowser, screenshot, signIn, watchOutsideRequests } from './browser';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -21,11 +21,7 @@ describe('the drafter', () => {
 	it('creates a drawing, uploads a two-sheet PDF with progress, and sees its sheets', async () => {
 		const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
 		const outside = watchOutsideRequests(page, baseUrl);
-		await page.goto(`${baseUrl}/signin`);
-		await page.getByLabel('E-mail').fill('drafter@example.test');
-		await page.getByLabel('Password').fill('demo-password-for-tests');
-		await page.getByRole('button', { name: 'Sign in', exact: true }).click();
-		await page.getByRole('heading', { name: 'Your teams' }).waitFor();
+		await signIn(page, baseUrl, 'drafter@example.test');
 
 		await page.goto(`${baseUrl}/teams/kestrel`);
 		await page.getByRole('link', { name: 'KF-1001' }).waitFor();
@@ -68,11 +64,7 @@ describe('the drafter', () => {
 
 	it('shows the upload progress bar while a file is sent', async () => {
 		const page = await browser.newPage();
-		await page.goto(`${baseUrl}/signin`);
-		await page.getByLabel('E-mail').fill('drafter@example.test');
-		await page.getByLabel('Password').fill('demo-password-for-tests');
-		await page.getByRole('button', { name: 'Sign in', exact: true }).click();
-		await page.getByRole('heading', { name: 'Your teams' }).waitFor();
+		await signIn(page, baseUrl, 'drafter@example.test');
 		await page.goto(`${baseUrl}/teams/kestrel/drawings/KF-1003`);
 		const big = join(files, 'big.pdf');
 		const pdf = await twoSheetPdf('BIG');

@@ -4,6 +4,7 @@ import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { TestProject } from 'vitest/node';
+import { demoPassword } from './browser';
 
 declare module 'vitest' {
 	export interface ProvidedContext {
@@ -39,7 +40,7 @@ export default async function setup(project: TestProject) {
 			DATABASE_URL: '',
 			S3_ENDPOINT: '',
 			SMTP_URL: '',
-			DEMO_PASSWORD: 'demo-password-for-tests',
+			DEMO_PASSWORD: demoPassword,
 			MAX_UPLOAD_MB: '20'
 		},
 		stdio: ['ignore', 'pipe', 'inherit']

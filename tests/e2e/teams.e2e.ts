@@ -1,9 +1,8 @@
 import { afterAll, beforeAll, describe, inject, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, screenshot } from './browser';
+import type { Browser } from 'playwright-core';
+import { launchBrowser, screenshot, signIn } from './browser';
 
 const baseUrl = inject('baseUrl');
-const demoPassword = 'demo-password-for-tests';
 let browser: Browser;
 
 beforeAll(async () => {
@@ -13,22 +12,10 @@ afterAll(async () => {
 	await browser?.close();
 });
 
-async function signIn(page: Page, email: string) {
-	await page.goto(`${baseUrl}/signin`);
-	await page.getByLabel('E-mail').fill(email);
-	await page.getByLabel('Password').fill(demoPassword);
-	await page.getByRole('button', { name: 'Sign in', exact: true }).click();
-	await page
-		.getByRole('link', { name: 'Sign out' })
-		.or(page.getByRole('button', { name: 'Sign out' }))
-		.first()
-		.waitFor();
-}
-
 describe('team members', () => {
 	it('the admin invites a checker, who joins from the e-mailed link', async () => {
 		const admin = await browser.newPage();
-		await signIn(admin, 'admin@example.test');
+		await signIn(admin, baseUrl, 'admin@example.test');
 		await admin.goto(`${baseUrl}/teams/kestrel/members`);
 		const invitee = `new-${Date.now()}@example.test`;
 		await admin.getByLabel('E-mail').fill(invitee);
@@ -66,7 +53,7 @@ describe('team members', () => {
 
 	it('refuses the members page to supplier quality', async () => {
 		const page = await browser.newPage();
-		await signIn(page, 'quality@example.test');
+		await signIn(page, baseUrl, 'quality@example.test');
 		const response = await page.goto(`${baseUrl}/teams/kestrel/members`);
 		if (response?.status() !== 403) throw new Error(`expected 403, got ${response?.status()}`);
 		await page

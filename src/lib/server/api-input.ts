@@ -24,3 +24,7 @@ export async function readJson<S extends z.ZodType>(
 	}
 	return parsed.data;
 }
+
+/** Ids in paths are UUIDs; anything else cannot name a row, so the route answers 404. */
+export const isUuid = (id: string) =>
+	/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id);

@@ -13,6 +13,7 @@ import { config as settings } from './config';
 import { startDatabase } from './db';
 import { accounts, users, verificationTokens } from './db/schema';
 import { clearAttempts, isRateLimited, recordAttempt } from './db/queries/attempts';
+import type { Actor } from './db/queries/activity';
 import { getUserByEmail, getUserById } from './db/queries/users';
 import { queueMail } from './mail/outbox';
 import { signInLinkMail } from './mail/templates';
@@ -165,11 +166,8 @@ export function signOutHere(event: RequestEvent) {
 	}
 }
 
-export interface CurrentUser {
-	id: string;
-	name: string | null;
-	email: string;
-}
+/** The signed-in user is the actor every change records. */
+export type CurrentUser = Actor;
 
 /** The signed-in user, or null when the token was revoked (generation bumped) or the user is gone. */
 export async function userFromSession(event: RequestEvent): Promise<CurrentUser | null> {

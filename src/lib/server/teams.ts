@@ -7,8 +7,7 @@ import { getUserByEmail } from './db/queries/users';
 import { queueMail } from './mail/outbox';
 import { invitationMail } from './mail/templates';
 import { nudgeOutbox } from './mail/worker';
-
-type Actor = { id: string; name: string | null; email: string };
+import type { Actor } from './db/queries/activity';
 
 /**
  * Adds a person to a team: someone who already has an account joins at once; anyone else

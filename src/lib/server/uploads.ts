@@ -17,8 +17,7 @@ import {
 } from './db/queries/drawings';
 import { inspectPdf } from './pdf';
 import type { Storage, StoredObject } from './storage';
-
-type Actor = { id: string; name: string | null; email: string };
+import type { Actor } from './db/queries/activity';
 
 export interface Refusal {
 	ok: false;

@@ -2,6 +2,9 @@ import { and, desc, eq, lt } from 'drizzle-orm';
 import type { Db } from '../connect';
 import { activity } from '../schema';
 
+/** Who does something: the signed-in user as every change records them. */
+export type Actor = { id: string; name: string | null; email: string };
+
 export interface ActivityEntry {
 	teamId: string | null;
 	actor: { id: string; name: string | null; email?: string } | null;

@@ -2,9 +2,7 @@ import { createHash, randomBytes } from 'node:crypto';
 import { and, desc, eq, isNull } from 'drizzle-orm';
 import type { Db } from '../connect';
 import { apiTokens, users } from '../schema';
-import { recordActivity } from './activity';
-
-type Actor = { id: string; name: string | null; email: string };
+import { recordActivity, type Actor } from './activity';
 
 const hash = (token: string) => createHash('sha256').update(token).digest('hex');
 const prefix = 'cpt_';

@@ -1,9 +1,8 @@
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../connect';
 import { drawings, revisions, users, type DrawingRow, type RevisionRow } from '../schema';
-import { recordActivity } from './activity';
+import { recordActivity, type Actor } from './activity';
 
-type Actor = { id: string; name: string | null; email: string };
 export type DrawingInput = Omit<
 	typeof drawings.$inferInsert,
 	'id' | 'teamId' | 'version' | 'createdBy' | 'createdAt' | 'updatedAt'

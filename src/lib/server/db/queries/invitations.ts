@@ -2,11 +2,9 @@ import { createHash, randomBytes } from 'node:crypto';
 import { and, desc, eq, gt, isNull } from 'drizzle-orm';
 import type { Db } from '../connect';
 import { invitations, teams, type Role } from '../schema';
-import { recordActivity } from './activity';
+import { recordActivity, type Actor } from './activity';
 import { addMember } from './teams';
 import { normaliseEmail } from './users';
-
-type Actor = { id: string; name: string | null; email: string };
 
 const hash = (token: string) => createHash('sha256').update(token).digest('hex');
 export const invitationLifetimeMs = 7 * 24 * 60 * 60_000;

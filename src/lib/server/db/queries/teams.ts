@@ -1,9 +1,7 @@
 import { and, asc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../connect';
 import { memberships, teams, users, type Role } from '../schema';
-import { recordActivity } from './activity';
-
-type Actor = { id: string; name: string | null; email: string };
+import { recordActivity, type Actor } from './activity';
 
 export async function getTeamBySlug(db: Db, slug: string) {
 	const [team] = await db.select().from(teams).where(eq(teams.slug, slug));

@@ -1,4 +1,5 @@
 import { error } from '@sveltejs/kit';
+import { isUuid } from '$lib/server/api-input';
 import { db } from '$lib/server/db';
 import { revokeApiToken } from '$lib/server/db/queries/api-tokens';
 import { requireUser } from '$lib/server/guards';
@@ -6,7 +7,7 @@ import type { RequestHandler } from './$types';
 
 export const DELETE: RequestHandler = async ({ params }) => {
 	const user = requireUser();
-	const ok = /^[0-9a-f-]{36}$/i.test(params.id) && (await revokeApiToken(db, user, params.id));
+	const ok = isUuid(params.id) && (await revokeApiToken(db, user, params.id));
 	if (!ok) error(404, { message: 'No such token', code: 'not_found' });
 	return new Response(null, { status: 204 });
 };

@@ -1,4 +1,5 @@
 import { error } from '@sveltejs/kit';
+import { isUuid } from '$lib/server/api-input';
 import { db } from '$lib/server/db';
 import { revokeInvitation } from '$lib/server/db/queries/invitations';
 import { requireMember } from '$lib/server/guards';
@@ -6,8 +7,7 @@ import type { RequestHandler } from './$types';
 
 export const DELETE: RequestHandler = async ({ params }) => {
 	const { user, team } = await requireMember(params.team, 'manageTeam');
-	const ok =
-		/^[0-9a-f-]{36}$/i.test(params.id) && (await revokeInvitation(db, user, team.id, params.id));
+	const ok = isUuid(params.id) && (await revokeInvitation(db, user, team.id, params.id));
 	if (!ok) error(404, { message: 'No such open invitation', code: 'not_found' });
 	return new Response(null, { status: 204 });
 };

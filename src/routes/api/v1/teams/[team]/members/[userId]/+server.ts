@@ -1,12 +1,10 @@
 import { error, json } from '@sveltejs/kit';
 import { roleInput } from '$lib/schemas/teams';
-import { readJson } from '$lib/server/api-input';
+import { isUuid, readJson } from '$lib/server/api-input';
 import { db } from '$lib/server/db';
 import { changeRole, LastAdmin, removeMember } from '$lib/server/db/queries/teams';
 import { requireMember } from '$lib/server/guards';
 import type { RequestHandler } from './$types';
-
-const isUuid = (id: string) => /^[0-9a-f-]{36}$/i.test(id);
 
 export const PATCH: RequestHandler = async ({ params, request }) => {
 	const { user, team } = await requireMember(params.team, 'manageTeam');
