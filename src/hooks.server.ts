@@ -6,7 +6,7 @@ import { authHandle, userFromSession } from '$lib/server/auth';
 import { config } from '$lib/server/config';
 import { db, startDatabase } from '$lib/server/db';
 import { userForApiToken } from '$lib/server/db/queries/api-tokens';
-import { demoPassword, demoPeople, seedDemo } from '$lib/server/demo/seed';
+import { demoPassword, demoPeople } from '$lib/server/demo/people';
 import { startOutboxWorker } from '$lib/server/mail/worker';
 import { getStorage } from '$lib/server/services';
 
@@ -15,6 +15,8 @@ export const init: ServerInit = async () => {
 	await database.migrate();
 	if (env.SEED_DEMO !== '0') {
 		const password = demoPassword(config.dataDir, env.DEMO_PASSWORD);
+		// The seed brings the PDF generator and its fonts: load it only when seeding.
+		const { seedDemo } = await import('$lib/server/demo/seed');
 		await seedDemo(database.db, password, getStorage(), config.uploadTempDir);
 		console.log(
 			`[checkplate] demo users ${demoPeople.map((p) => p.email).join(', ')} — password: ${password}`

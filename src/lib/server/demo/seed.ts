@@ -1,6 +1,3 @@
-import { existsSync, readFileSync, writeFileSync } from 'node:fs';
-import { randomBytes } from 'node:crypto';
-import { join } from 'node:path';
 import type { Db } from '../db/connect';
 import {
 	createDrawing,
@@ -12,24 +9,10 @@ import { addMember, getTeamBySlug } from '../db/queries/teams';
 import type { Storage } from '../storage';
 import { storeRevisionBytes } from '../uploads';
 import { demoDrawingPdf, demoDrawings } from './drawings';
+import { demoPeople } from './people';
 import { createUser, getUserByEmail } from '../db/queries/users';
 import { teams, type Role, type UserRow } from '../db/schema';
 import { hashPassword } from '../passwords';
-
-export const demoPeople = [
-	{ email: 'admin@example.test', name: 'Ines Marlow', role: 'admin' },
-	{ email: 'drafter@example.test', name: 'Tomas Reyes', role: 'drafter' },
-	{ email: 'checker@example.test', name: 'Priya Natarajan', role: 'checker' },
-	{ email: 'quality@example.test', name: 'Ken Halloran', role: 'quality' }
-] as const;
-
-/** DEMO_PASSWORD, or one generated once and kept in the data dir so every start prints it. */
-export function demoPassword(dataDir: string, configured: string | undefined) {
-	if (configured) return configured;
-	const file = join(dataDir, 'demo-password');
-	if (!existsSync(file)) writeFileSync(file, randomBytes(9).toString('base64url'), { mode: 0o600 });
-	return readFileSync(file, 'utf8').trim();
-}
 
 /** The invented Kestrel Fluidics demo: created once, never overwritten. */
 export async function seedDemo(db: Db, password: string, storage: Storage, tempDir: string) {

@@ -1,0 +1,45 @@
+import type { DemoCallout, Sheet } from '../sheet';
+
+export type DemoDrawingNumber = 'KF-1001' | 'KF-1002' | 'KF-1003' | 'KF-2001';
+
+export type GeneralTolerance =
+	| {
+			kind: 'iso2768';
+			linear: 'f' | 'm' | 'c' | 'v';
+			geometric?: 'H' | 'K' | 'L';
+			envelope?: boolean;
+	  }
+	| { kind: 'decimal-places'; byPlaces: Record<string, string>; angle?: string };
+
+export interface DemoDrawing {
+	number: DemoDrawingNumber;
+	title: string;
+	partName: string;
+	material: string;
+	units: 'mm' | 'in';
+	standard: 'iso-8015' | 'asme-y14.5-2018';
+	generalTolerance: GeneralTolerance;
+	notes: string;
+	/** Page size in PDF points (one sheet each). */
+	sheets: { width: number; height: number }[];
+	/** Every callout drawn, with where it sits (see DemoCallout). */
+	callouts: DemoCallout[];
+}
+
+/** One part drawing of the demo: what goes in its title block and notes, and how to draw it. */
+export interface PartDrawing extends Omit<DemoDrawing, 'callouts' | 'notes' | 'sheets'> {
+	size: 'A3' | 'A4';
+	scale: string;
+	projection: 'first' | 'third';
+	tolerancing: string[];
+	noteLines: string[];
+	drawnBy: string;
+	draw: (s: Sheet) => void;
+}
+
+export const isoGeneral: GeneralTolerance = { kind: 'iso2768', linear: 'm', geometric: 'K' };
+export const isoTolerancing = [
+	'TOLERANCING ISO 8015',
+	'GENERAL TOLERANCES ISO 2768-mK',
+	'DIMENSIONS IN mm'
+];
