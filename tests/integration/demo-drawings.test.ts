@@ -2,6 +2,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
+import { decodePDFRawStream, PDFDict, PDFDocument, PDFName, PDFRawStream } from 'pdf-lib';
 import type { TextItem } from 'pdfjs-dist/types/src/display/api';
 import {
 	demoDrawingPdf,
@@ -41,6 +42,37 @@ async function extract(bytes: Uint8Array): Promise<Extracted> {
 	} finally {
 		await pdf.destroy();
 	}
+}
+
+/**
+ * Every embedded TrueType face, with its glyph index (`loca`) and glyph table (`glyf`) lengths:
+ * the index must end exactly where the table does, or the last glyphs draw nothing.
+ */
+async function embeddedFaces(bytes: Uint8Array) {
+	const doc = await PDFDocument.load(bytes);
+	const faces: { name: string; indexEnd: number; tableLength: number }[] = [];
+	for (const [, object] of doc.context.enumerateIndirectObjects()) {
+		if (!(object instanceof PDFDict) || !object.has(PDFName.of('FontFile2'))) continue;
+		const file = object.lookup(PDFName.of('FontFile2'), PDFRawStream);
+		const font = Buffer.from(decodePDFRawStream(file).decode());
+		const tables = new Map<string, Buffer>();
+		for (let i = 0; i < font.readUInt16BE(4); i++) {
+			const at = 12 + 16 * i;
+			const [offset, length] = [font.readUInt32BE(at + 8), font.readUInt32BE(at + 12)];
+			tables.set(font.toString('latin1', at, at + 4), font.subarray(offset, offset + length));
+		}
+		const loca = tables.get('loca')!;
+		const long = tables.get('head')!.readInt16BE(50) === 1;
+		const indexEnd = long
+			? loca.readUInt32BE(loca.length - 4)
+			: 2 * loca.readUInt16BE(loca.length - 2);
+		faces.push({
+			name: String(object.get(PDFName.of('FontName'))),
+			indexEnd,
+			tableLength: tables.get('glyf')!.length
+		});
+	}
+	return faces;
 }
 
 const normalise = (text: string) => text.replace(/\s+/g, ' ').trim();
@@ -156,6 +188,12 @@ describe('demo drawings', () => {
 				const { bytes } = generated.get(drawing.number)!;
 				expect(new TextDecoder().decode(bytes.subarray(0, 5))).toBe('%PDF-');
 				expect(bytes.length).toBeLessThan(200_000);
+			});
+
+			it('embeds four faces, each with every glyph whole', async () => {
+				const faces = await embeddedFaces(generated.get(drawing.number)!.bytes);
+				expect(faces).toHaveLength(4);
+				for (const face of faces) expect(face.indexEnd, face.name).toBe(face.tableLength);
 			});
 
 			it('opens in pdf.js with one sheet of the stated size', async () => {
