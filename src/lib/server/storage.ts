@@ -145,5 +145,3 @@ export function parseRange(
 	if (start >= size || start > end) return 'unsatisfiable';
 	return { start, end };
 }
-
-export { Readable };

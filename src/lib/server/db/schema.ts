@@ -278,6 +278,4 @@ export type UserRow = typeof users.$inferSelect;
 export type DrawingRow = typeof drawings.$inferSelect;
 export type RevisionRow = typeof revisions.$inferSelect;
 export type TeamRow = typeof teams.$inferSelect;
-export type MembershipRow = typeof memberships.$inferSelect;
-export type ActivityRow = typeof activity.$inferSelect;
 export type OutboxRow = typeof outbox.$inferSelect;
