@@ -52,8 +52,9 @@ async function embeddedFaces(bytes: Uint8Array) {
 	const doc = await PDFDocument.load(bytes);
 	const faces: { name: string; indexEnd: number; tableLength: number }[] = [];
 	for (const [, object] of doc.context.enumerateIndirectObjects()) {
-		if (!(object instanceof PDFDict) || !object.has(PDFName.of('FontFile2'))) continue;
-		const file = object.lookup(PDFName.of('FontFile2'), PDFRawStream);
+		if (!(object instanceof PDFDict)) continue;
+		const file = object.lookup(PDFName.of('FontFile2'));
+		if (!(file instanceof PDFRawStream)) continue;
 		const font = Buffer.from(decodePDFRawStream(file).decode());
 		const tables = new Map<string, Buffer>();
 		for (let i = 0; i < font.readUInt16BE(4); i++) {
