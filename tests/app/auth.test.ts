@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { Client, linkIn, unique, waitForMail } from './client';
+import { linkIn, unique, waitForMail } from '../shared';
+import { Client } from './client';
 
 async function signUpAndVerify(client: Client, password = 'pump housing bore 18') {
 	const email = `user-${unique()}@example.test`;

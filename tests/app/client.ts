@@ -1,10 +1,9 @@
 import { inject } from 'vitest';
-import { readdirSync, readFileSync } from 'node:fs';
-import { join } from 'node:path';
 
 export const baseUrl = inject('baseUrl');
 export const dataDir = inject('dataDir');
 import { demoPassword } from '../e2e/browser';
+import { linkIn, unique, waitForMail } from '../shared';
 
 export { demoPassword };
 
@@ -87,45 +86,6 @@ export class Client {
 	}
 }
 
-/** The mail the stand-in caught, newest first. */
-export function caughtMail() {
-	const dir = join(dataDir, 'mail');
-	return readdirSync(dir)
-		.filter((name) => name.endsWith('.json'))
-		.sort()
-		.reverse()
-		.map((name) => JSON.parse(readFileSync(join(dir, name), 'utf8')) as CaughtMail);
-}
-
-interface CaughtMail {
-	to: string[];
-	subject: string;
-	text: string;
-	html: string;
-	messageId: string;
-}
-
-/** Waits for a message to `to` whose subject matches, as the outbox delivers within seconds. */
-export async function waitForMail(to: string, subject: RegExp, timeoutMs = 15_000) {
-	const until = Date.now() + timeoutMs;
-	while (Date.now() < until) {
-		try {
-			const found = caughtMail().find((m) => m.to.includes(to) && subject.test(m.subject));
-			if (found) return found;
-		} catch {
-			// the mail folder appears with the first message
-		}
-		await new Promise((done) => setTimeout(done, 200));
-	}
-	throw new Error(`no mail to ${to} matching ${subject}`);
-}
-
-export function linkIn(mail: { text: string }, path: string) {
-	const match = new RegExp(`https?://\\S+${path.replace(/[/?]/g, '\\$&')}\\S*`).exec(mail.text);
-	if (!match) throw new Error(`no ${path} link in: ${mail.text}`);
-	return new URL(match[0]).pathname + new URL(match[0]).search;
-}
-
 /** A JSON API call as a script would make it: a Bearer token and no Origin header. */
 export function bearerCall(token: string, method: string, path: string, body?: unknown) {
 	return apiCall(method, path, body, { authorization: `Bearer ${token}` });
@@ -143,8 +103,6 @@ async function apiCall(
 		body: body === undefined ? undefined : JSON.stringify(body)
 	});
 }
-
-export const unique = () => `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
 
 /** Signs up and confirms a new account through the real pages and mail, then signs in. */
 export async function newVerifiedUser(client: Client, name = 'Ada Reviewer') {

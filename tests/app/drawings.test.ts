@@ -3,7 +3,8 @@ import { readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { encryptedPdf, notAPdf, truncatedPdf, twoSheetPdf } from '../fixtures/pdfs';
-import { baseUrl, bearerCall, Client, dataDir, newVerifiedUser, unique } from './client';
+import { unique } from '../shared';
+import { baseUrl, bearerCall, Client, dataDir, newVerifiedUser } from './client';
 
 const drafter = new Client();
 const checker = new Client();

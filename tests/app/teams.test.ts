@@ -1,5 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { bearerCall, Client, linkIn, newVerifiedUser, unique, waitForMail } from './client';
+import { linkIn, unique, waitForMail } from '../shared';
+import { bearerCall, Client, newVerifiedUser } from './client';
 
 type Actor =
 	'signedOut' | 'admin' | 'drafter' | 'checker' | 'quality' | 'outsider' | 'token' | 'revokedToken';

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, screenshot, watchOutsideRequests } from './browser';
+import type { Browser } from 'playwright-core';
+import { unique } from '../shared';
+import { followMailLink, launchBrowser, screenshot, watchOutsideRequests } from './browser';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -12,27 +13,11 @@ afterAll(async () => {
 	await browser?.close();
 });
 
-/** Opens the caught message to `to` whose subject matches, on /dev/mail, and follows a link. */
-async function followMailLink(page: Page, to: string, subject: string, linkName: string) {
-	for (let i = 0; i < 50; i++) {
-		await page.goto(`${baseUrl}/dev/mail`);
-		// The outbox delivers within seconds: reload until this very message is there.
-		const item = page.getByRole('button', { name: new RegExp(`${subject}.*to ${to}`) }).first();
-		if (await item.count()) {
-			await item.click();
-			break;
-		}
-		await page.waitForTimeout(300);
-	}
-	const links = page.getByRole('navigation', { name: 'Links in this message' });
-	await links.getByRole('link', { name: linkName, exact: true }).click();
-}
-
 describe('a new user', () => {
 	it('signs up, confirms the address from the caught mail, signs in and out, then uses a link', async () => {
 		const page = await browser.newPage();
 		const outside = watchOutsideRequests(page, baseUrl);
-		const email = `lena-${Date.now()}@example.test`;
+		const email = `lena-${unique()}@example.test`;
 		const password = 'bracket pivot hole';
 
 		await page.goto(`${baseUrl}/signup`);
@@ -45,7 +30,7 @@ describe('a new user', () => {
 		await page.getByRole('button', { name: 'Create account' }).click();
 		await page.getByText('Check your mail').waitFor();
 
-		await followMailLink(page, email, 'Confirm your e-mail address', 'Confirm my address');
+		await followMailLink(page, baseUrl, email, 'Confirm your e-mail address', 'Confirm my address');
 		await page.getByText('Your e-mail address is confirmed').waitFor();
 
 		await page.getByLabel('E-mail').fill(email);
@@ -67,7 +52,7 @@ describe('a new user', () => {
 		await page.getByLabel('E-mail').fill(email);
 		await page.getByRole('button', { name: 'Send me a sign-in link' }).click();
 		await page.getByText('a sign-in link is on its way').waitFor();
-		await followMailLink(page, email, 'Your Checkplate sign-in link', 'Sign in');
+		await followMailLink(page, baseUrl, email, 'Your Checkplate sign-in link', 'Sign in');
 		await page.getByRole('link', { name: 'Lena Okafor' }).waitFor();
 		expect(outside).toEqual([]);
 		await page.close();

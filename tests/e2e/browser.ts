@@ -1,6 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { findChromium } from './chromium.js';
+import { waitForMail } from '../shared';
 
 export const artifactsDir = 'test-results/screenshots';
 
@@ -55,4 +56,27 @@ export async function signIn(page: Page, baseUrl: string, email: string) {
 	await page.getByLabel('Password').fill(demoPassword);
 	await page.getByRole('button', { name: 'Sign in', exact: true }).click();
 	await page.getByRole('heading', { name: 'Your teams' }).waitFor();
+}
+
+const literally = (text: string) => new RegExp(text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&'));
+
+/**
+ * Waits until the mail to `to` with this subject is caught, then opens it on /dev/mail as a
+ * person would and follows the link named `linkName` in it.
+ */
+export async function followMailLink(
+	page: Page,
+	baseUrl: string,
+	to: string,
+	subject: string,
+	linkName: string
+) {
+	await waitForMail(to, literally(subject));
+	await page.goto(`${baseUrl}/dev/mail`);
+	const name = new RegExp(`${literally(subject).source}.*to ${literally(to).source}`);
+	await page.getByRole('button', { name }).click();
+	await page
+		.getByRole('navigation', { name: 'Links in this message' })
+		.getByRole('link', { name: linkName, exact: true })
+		.click();
 }

@@ -83,11 +83,8 @@ describe('limits, MMC, LMC and gauges', () => {
 			standard: 'iso-8015',
 			internal: true
 		});
-		expect(r.ok).toBe(false);
-		if (!r.ok) {
-			expect(r.field).toBe('callout');
-			expect(r.position).toBeGreaterThan(3);
-		}
+		// The callout ends where the lower deviation should start: at the '/', character 10.
+		expect(r).toMatchObject({ ok: false, field: 'callout', position: 10 });
 	});
 
 	test('an ISO code of the wrong case for the feature is refused', () => {
@@ -97,7 +94,7 @@ describe('limits, MMC, LMC and gauges', () => {
 			units: 'mm',
 			standard: 'iso-8015'
 		});
-		expect(r.ok).toBe(false);
+		expect(r).toMatchObject({ ok: false, field: 'callout', position: 4 });
 	});
 
 	test('a fit designation on one feature takes the member matching the feature', () => {
