@@ -1,4 +1,5 @@
 // See https://svelte.dev/docs/kit/types#app.d.ts
+import type { FormatSettings } from '$lib/format';
 import type { CurrentUser } from '$lib/server/auth';
 
 declare global {
@@ -8,6 +9,10 @@ declare global {
 			errorId?: string;
 			code?: string;
 			[detail: string]: unknown;
+		}
+		interface PageData {
+			/** The locale and time zone dates and numbers are printed in (root layout). */
+			format?: FormatSettings;
 		}
 		interface Locals {
 			/** The signed-in user (session cookie or, on the API, a personal token). */

@@ -1,3 +1,7 @@
+import { formatSettings, timeZoneCookie } from '$lib/format';
 import type { LayoutServerLoad } from './$types';
 
-export const load: LayoutServerLoad = async ({ locals }) => ({ user: locals.user });
+export const load: LayoutServerLoad = async ({ locals, request, cookies }) => ({
+	user: locals.user,
+	format: formatSettings(request.headers.get('accept-language'), cookies.get(timeZoneCookie))
+});

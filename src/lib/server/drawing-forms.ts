@@ -1,5 +1,5 @@
-import { z } from 'zod';
 import { drawingInput, generalToleranceFromForm } from '$lib/schemas/drawings';
+import { fieldErrorsOf } from './forms';
 
 /** Reads the drawing form (flat fields) into the API's drawing shape. */
 export async function readDrawingForm(request: Request) {
@@ -19,9 +19,6 @@ export async function readDrawingForm(request: Request) {
 		string,
 		unknown
 	>;
-	if (!parsed.success) {
-		const errors = z.flattenError(parsed.error).fieldErrors as Record<string, string[]>;
-		return { ok: false as const, values, errors };
-	}
+	if (!parsed.success) return { ok: false as const, values, errors: fieldErrorsOf(parsed.error) };
 	return { ok: true as const, data: parsed.data, version: Number(form.version) || 0, values };
 }

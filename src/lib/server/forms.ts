@@ -1,5 +1,20 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
+import type { FieldErrors } from '$lib/forms';
+
+/** zod's messages per field, in the shape our pages read (`$lib/forms`). */
+export function fieldErrorsOf(error: z.ZodError): FieldErrors {
+	return z.flattenError(error).fieldErrors;
+}
+
+/** A refused form: `fail(status)` with the field messages and the values to show again. */
+export function refuseForm<V extends Record<string, unknown>>(
+	status: number,
+	errors: FieldErrors,
+	values: V
+) {
+	return fail(status, { values, errors });
+}
 
 /**
  * Parses a form with a zod schema. On failure returns the `fail(400)` to hand back, echoing
@@ -14,8 +29,11 @@ export async function parseForm<S extends z.ZodType>(
 	const parsed = schema.safeParse(form);
 	const values = Object.fromEntries(echo.map((k) => [k, String(form[k] ?? '')]));
 	if (!parsed.success) {
-		const errors = z.flattenError(parsed.error).fieldErrors as Record<string, string[]>;
-		return { ok: false as const, failure: fail(400, { values, errors }), values };
+		return {
+			ok: false as const,
+			failure: refuseForm(400, fieldErrorsOf(parsed.error), values),
+			values
+		};
 	}
 	return { ok: true as const, data: parsed.data as z.infer<S>, values };
 }

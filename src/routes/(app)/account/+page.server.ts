@@ -1,9 +1,9 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import { changePasswordInput } from '$lib/schemas/auth';
 import { signInWith, signOutHere } from '$lib/server/auth';
 import { db } from '$lib/server/db';
 import { endAllSessions, getUserById, setPassword } from '$lib/server/db/queries/users';
-import { parseForm } from '$lib/server/forms';
+import { parseForm, refuseForm } from '$lib/server/forms';
 import { requireUser } from '$lib/server/guards';
 import { hashPassword, verifyPassword } from '$lib/server/passwords';
 import type { Actions, PageServerLoad } from './$types';
@@ -20,13 +20,7 @@ export const actions: Actions = {
 		if (!form.ok) return form.failure;
 		const row = await getUserById(db, user.id);
 		if (!(await verifyPassword(form.data.currentPassword, row?.passwordHash))) {
-			return fail(400, {
-				values: {},
-				errors: { currentPassword: ['That is not your current password'] } as Record<
-					string,
-					string[]
-				>
-			});
+			return refuseForm(400, { currentPassword: ['That is not your current password'] }, {});
 		}
 		// Other devices are signed out; this one signs in again with the new password.
 		await setPassword(db, user.id, await hashPassword(form.data.password));

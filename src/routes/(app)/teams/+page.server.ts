@@ -1,8 +1,8 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import { teamInput } from '$lib/schemas/teams';
 import { db } from '$lib/server/db';
 import { createTeam, listTeamsOf, SlugTaken } from '$lib/server/db/queries/teams';
-import { parseForm } from '$lib/server/forms';
+import { parseForm, refuseForm } from '$lib/server/forms';
 import { requireUser } from '$lib/server/guards';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -21,7 +21,7 @@ export const actions: Actions = {
 			redirect(303, `/teams/${team.slug}`);
 		} catch (err) {
 			if (!(err instanceof SlugTaken)) throw err;
-			return fail(409, { values: form.values, errors: { slug: ['That address is taken'] } });
+			return refuseForm(409, { slug: ['That address is taken'] }, form.values);
 		}
 	}
 };

@@ -1,8 +1,9 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import { can } from '$lib/server/capabilities';
 import { db } from '$lib/server/db';
 import { createDrawing, DrawingNumberTaken, listDrawings } from '$lib/server/db/queries/drawings';
 import { readDrawingForm } from '$lib/server/drawing-forms';
+import { refuseForm } from '$lib/server/forms';
 import { requireMember } from '$lib/server/guards';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -28,13 +29,13 @@ export const actions: Actions = {
 	create: async ({ params, request }) => {
 		const { user, team } = await requireMember(params.team, 'author');
 		const form = await readDrawingForm(request);
-		if (!form.ok) return fail(400, { values: form.values, errors: form.errors });
+		if (!form.ok) return refuseForm(400, form.errors, form.values);
 		try {
 			const drawing = await createDrawing(db, user, team.id, form.data);
 			redirect(303, `/teams/${params.team}/drawings/${encodeURIComponent(drawing.number)}`);
 		} catch (err) {
 			if (!(err instanceof DrawingNumberTaken)) throw err;
-			return fail(409, { values: form.values, errors: { number: [err.message] } });
+			return refuseForm(409, { number: [err.message] }, form.values);
 		}
 	}
 };

@@ -19,7 +19,6 @@ export const actions: Actions = {
 		if (!used.ok) {
 			return fail(400, {
 				values: form.values,
-				errors: {} as Record<string, string[]>,
 				message:
 					used.reason === 'expired'
 						? 'That link has expired. Ask for a new one.'

@@ -5,6 +5,7 @@ import { db } from '$lib/server/db';
 import { listRevisions, StaleEdit, updateDrawing } from '$lib/server/db/queries/drawings';
 import { readDrawingForm } from '$lib/server/drawing-forms';
 import { requireDrawing } from '$lib/server/drawings';
+import { refuseForm } from '$lib/server/forms';
 import { nextRevisionLetter } from '$lib/revision-letters';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -47,7 +48,7 @@ export const actions: Actions = {
 	edit: async ({ params, request }) => {
 		const { user, drawing } = await requireDrawing(params.team, params.number, 'author');
 		const form = await readDrawingForm(request);
-		if (!form.ok) return fail(400, { values: form.values, errors: form.errors });
+		if (!form.ok) return refuseForm(400, form.errors, form.values);
 		const { number: _number, ...changes } = form.data;
 		try {
 			await updateDrawing(db, user, drawing, form.version, changes);
@@ -56,7 +57,6 @@ export const actions: Actions = {
 			if (!(err instanceof StaleEdit)) throw err;
 			return fail(409, {
 				values: form.values,
-				errors: {} as Record<string, string[]>,
 				message:
 					'Someone else saved this drawing while you were editing: your changes were not applied. The page now shows their version.'
 			});
