@@ -37,9 +37,11 @@ export interface PartDrawing extends Omit<DemoDrawing, 'callouts' | 'notes' | 's
 	draw: (s: Sheet) => void;
 }
 
-export const isoGeneral: GeneralTolerance = { kind: 'iso2768', linear: 'm', geometric: 'K' };
-export const isoTolerancing = [
-	'TOLERANCING ISO 8015',
-	'GENERAL TOLERANCES ISO 2768-mK',
-	'DIMENSIONS IN mm'
-];
+/** What the metric drawings share: ISO 8015, ISO 2768-mK, millimetres, first-angle projection. */
+export const isoMetric = {
+	units: 'mm',
+	standard: 'iso-8015',
+	generalTolerance: { kind: 'iso2768', linear: 'm', geometric: 'K' },
+	projection: 'first',
+	tolerancing: ['TOLERANCING ISO 8015', 'GENERAL TOLERANCES ISO 2768-mK', 'DIMENSIONS IN mm']
+} satisfies Partial<PartDrawing>;

@@ -1,19 +1,15 @@
 /** Demo drawing KF-1001 pump housing: 80 × 60 × 30, bore, dowels, cover bolt pattern, slot. */
 import { viewOf, type Pt, type Sheet } from '../sheet';
-import { isoGeneral, isoTolerancing, type PartDrawing } from './definition';
+import { isoMetric, type PartDrawing } from './definition';
 
 export const housing: PartDrawing = {
+	...isoMetric,
 	number: 'KF-1001',
 	title: 'Pump housing',
 	partName: 'Housing, dosing pump head',
 	material: 'EN AW-6082-T6 (AlSi1MgMn)',
-	units: 'mm',
-	standard: 'iso-8015',
-	generalTolerance: isoGeneral,
 	size: 'A3',
 	scale: '2:1',
-	projection: 'first',
-	tolerancing: isoTolerancing,
 	noteLines: [
 		'ISO 8015',
 		'ISO 2768-mK',

@@ -1,19 +1,15 @@
 /** Demo drawing KF-1002 drive shaft: coupling end, collar, journal, pump end; keyway. */
 import { viewOf, type Pt, type Sheet } from '../sheet';
-import { isoGeneral, isoTolerancing, type PartDrawing } from './definition';
+import { isoMetric, type PartDrawing } from './definition';
 
 export const driveShaft: PartDrawing = {
+	...isoMetric,
 	number: 'KF-1002',
 	title: 'Drive shaft',
 	partName: 'Shaft, pump drive',
 	material: 'X8CrNiS18-9 (1.4305)',
-	units: 'mm',
-	standard: 'iso-8015',
-	generalTolerance: isoGeneral,
 	size: 'A3',
 	scale: '2:1',
-	projection: 'first',
-	tolerancing: isoTolerancing,
 	noteLines: [
 		'ISO 8015',
 		'ISO 2768-mK',

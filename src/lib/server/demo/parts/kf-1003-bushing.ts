@@ -1,19 +1,15 @@
 /** Demo drawing KF-1003 bushing: Ø18 outside, Ø12 bore, 20 long. */
 import { viewOf, type Pt, type Sheet } from '../sheet';
-import { isoGeneral, isoTolerancing, type PartDrawing } from './definition';
+import { isoMetric, type PartDrawing } from './definition';
 
 export const bushing: PartDrawing = {
+	...isoMetric,
 	number: 'KF-1003',
 	title: 'Bushing',
 	partName: 'Bushing, drive shaft journal',
 	material: 'CuSn8P (CW453K)',
-	units: 'mm',
-	standard: 'iso-8015',
-	generalTolerance: isoGeneral,
 	size: 'A4',
 	scale: '4:1',
-	projection: 'first',
-	tolerancing: isoTolerancing,
 	noteLines: ['ISO 8015', 'ISO 2768-mK', 'CHAMFER 0.5 × 45° ALL EDGES'],
 	drawnBy: 'Tomas Reyes',
 	draw: drawBushing
