@@ -1,12 +1,14 @@
 import { z } from 'zod';
 import { generalToleranceInput } from './drawings';
-import type { GoverningStandard } from '$lib/tolerance/feature';
-import { FIT_INTENTS, type FitIntent } from '$lib/tolerance/fit';
+import { UNITS } from '$lib/tolerance/decimal';
+import { GOVERNING_STANDARDS, type GoverningStandard } from '$lib/tolerance/drawing-context';
+import { CHARACTERISTICS, MATERIAL_MODIFIERS } from '$lib/tolerance/feature';
+import { FIT_INTENTS } from '$lib/tolerance/fit';
 
 export const CAUTION =
 	"Results are advisory: the governing standard, your organisation's drawing practice and a qualified checker decide.";
 
-const STANDARDS = ['asme-y14.5-2018', 'asme-y14.5-2009', 'iso-8015', 'unstated'] as const;
+const STANDARDS = GOVERNING_STANDARDS;
 const SHORT: Record<string, GoverningStandard> = { asme: 'asme-y14.5-2018', iso: 'iso-8015' };
 
 export const standard = z
@@ -16,7 +18,8 @@ export const standard = z
 	.default('unstated')
 	.transform((s): GoverningStandard => SHORT[s] ?? (s as GoverningStandard));
 
-export const units = z.enum(['mm', 'in'], { error: 'units must be mm or in' }).default('mm');
+const unit = z.enum(UNITS, { error: 'units must be mm or in' });
+export const units = unit.default('mm');
 
 /** Decimals travel as strings; a JSON number is accepted and read as written. */
 const decimal = z.union([z.string().trim().min(1).max(40), z.number().finite()]).transform(String);
@@ -28,26 +31,11 @@ const callout = z
 	.max(200, { error: 'a callout is at most 200 characters' });
 
 export const geometricControl = z.object({
-	characteristic: z.enum([
-		'straightness',
-		'flatness',
-		'circularity',
-		'cylindricity',
-		'profile-of-a-line',
-		'profile-of-a-surface',
-		'angularity',
-		'perpendicularity',
-		'parallelism',
-		'position',
-		'concentricity',
-		'symmetry',
-		'circular-runout',
-		'total-runout'
-	]),
+	characteristic: z.enum(CHARACTERISTICS),
 	value: decimal,
 	diameterZone: z.boolean().default(false),
 	appliesTo: z.enum(['surface', 'median']).default('median'),
-	modifier: z.enum(['mmc', 'lmc', 'rfs']).default('rfs'),
+	modifier: z.enum(MATERIAL_MODIFIERS).default('rfs'),
 	datums: z.array(z.string().trim().min(1).max(3)).max(3).default([])
 });
 
@@ -85,7 +73,7 @@ export const sizeInput = z.object({
 
 const member = z.object({
 	callout,
-	units: z.enum(['mm', 'in']).optional(),
+	units: unit.optional(),
 	geometric: geometric.optional(),
 	overrides,
 	notes: z.string().max(2000).optional()
@@ -98,7 +86,7 @@ export const fitInput = z
 		fastener: z
 			.object({
 				callout,
-				units: z.enum(['mm', 'in']).optional(),
+				units: unit.optional(),
 				fixedPosition: decimal.optional(),
 				projection: z.object({ P: decimal, D: decimal }).optional()
 			})
@@ -106,7 +94,7 @@ export const fitInput = z
 		units,
 		standard,
 		generalTolerance: generalTolerance.optional(),
-		intent: z.enum(FIT_INTENTS as unknown as [FitIntent, ...FitIntent[]]).optional(),
+		intent: z.enum(FIT_INTENTS).optional(),
 		requiredMinClearance: decimal.optional(),
 		requiredMaxClearance: decimal.optional(),
 		temperature: z

@@ -1,5 +1,8 @@
 import { z } from 'zod';
 import { isRevisionLetter } from '$lib/revision-letters';
+import { UNITS } from '$lib/tolerance/decimal';
+import { GOVERNING_STANDARDS, type GeneralTolerance } from '$lib/tolerance/drawing-context';
+import { GEOMETRIC_CLASSES, LINEAR_CLASSES } from '$lib/tolerance/iso2768';
 
 const decimalText = z.string().regex(/^\d*\.?\d+$/, { error: 'Write a decimal such as 0.005' });
 
@@ -7,8 +10,8 @@ export const generalToleranceInput = z
 	.discriminatedUnion('kind', [
 		z.object({
 			kind: z.literal('iso2768'),
-			linear: z.enum(['f', 'm', 'c', 'v']),
-			geometric: z.enum(['H', 'K', 'L']).optional(),
+			linear: z.enum(LINEAR_CLASSES),
+			geometric: z.enum(GEOMETRIC_CLASSES).optional(),
 			envelope: z.boolean().optional()
 		}),
 		z.object({
@@ -23,8 +26,16 @@ export const generalToleranceInput = z
 	])
 	.nullable();
 
-export const units = z.enum(['mm', 'in'], { error: 'Choose mm or in' });
-export const standard = z.enum(['asme-y14.5-2018', 'asme-y14.5-2009', 'iso-8015', 'unstated'], {
+// The schema reads exactly the core's shape: a change to either fails to compile until both agree.
+type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+const generalToleranceAgrees: Same<
+	z.infer<typeof generalToleranceInput>,
+	GeneralTolerance | null
+> = true;
+void generalToleranceAgrees;
+
+export const units = z.enum(UNITS, { error: 'Choose mm or in' });
+export const standard = z.enum(GOVERNING_STANDARDS, {
 	error: 'Choose the governing standard'
 });
 

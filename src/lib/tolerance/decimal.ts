@@ -7,7 +7,8 @@
  * per operation. Text is parsed digit by digit; no float ever holds a size.
  */
 
-export type Units = 'mm' | 'in';
+export const UNITS = ['mm', 'in'] as const;
+export type Units = (typeof UNITS)[number];
 
 /** An exact length: an integer count of 0.1 nm (1e-7 mm). 1 in = 254_000_000 exactly. */
 export type Length = number;
@@ -123,10 +124,6 @@ export function fromMicrometres(um: number): Length {
 /** Inch thousandths (ANSI B4.1 tables), exact for multiples of 0.1 thou. */
 export function fromThousandths(thou: number): Length {
 	return Math.round(thou * 10) * (PER_THOU / 10);
-}
-
-export function fromMillimetres(whole: number): Length {
-	return whole * PER_MM;
 }
 
 /** Integer division with one rounding: 'up' toward +∞, 'down' toward −∞, 'nearest' half away from zero. */
@@ -253,9 +250,4 @@ export function max(a: Length, b: Length): Length {
 
 export function abs(a: Length): Length {
 	return a < 0 ? -a : a;
-}
-
-/** True when a number is a usable length (integer on the grid, exact in a JS number). */
-export function isLength(value: unknown): value is Length {
-	return typeof value === 'number' && Number.isSafeInteger(value);
 }

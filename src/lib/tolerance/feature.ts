@@ -7,32 +7,38 @@ import { calloutLimits, parseCallout } from './callout';
 import type { CalloutSpec, Modifier, Tolerance } from './callout-types';
 import { formatLength, parseDecimal, perUnit, type Length, type Units } from './decimal';
 import { isoLimits } from './iso286';
-import { generalLinearTolerance, type LinearClass } from './iso2768';
-import { titleBlockTolerance, type DecimalPlacesTolerance } from './title-block';
+import {
+	STANDARDS,
+	isAsme,
+	type GeneralTolerance,
+	type GoverningStandard
+} from './drawing-context';
+import { generalLinearTolerance } from './iso2768';
+import { titleBlockTolerance } from './title-block';
 
-export type GoverningStandard = 'asme-y14.5-2018' | 'asme-y14.5-2009' | 'iso-8015' | 'unstated';
+export type { GoverningStandard, GeneralTolerance } from './drawing-context';
 
-export type GeneralTolerance =
-	| { kind: 'iso2768'; linear: LinearClass; geometric?: 'H' | 'K' | 'L'; envelope?: boolean }
-	| DecimalPlacesTolerance;
+export const CHARACTERISTICS = [
+	'straightness',
+	'flatness',
+	'circularity',
+	'cylindricity',
+	'profile-of-a-line',
+	'profile-of-a-surface',
+	'angularity',
+	'perpendicularity',
+	'parallelism',
+	'position',
+	'concentricity',
+	'symmetry',
+	'circular-runout',
+	'total-runout'
+] as const;
 
-export type Characteristic =
-	| 'straightness'
-	| 'flatness'
-	| 'circularity'
-	| 'cylindricity'
-	| 'profile-of-a-line'
-	| 'profile-of-a-surface'
-	| 'angularity'
-	| 'perpendicularity'
-	| 'parallelism'
-	| 'position'
-	| 'concentricity'
-	| 'symmetry'
-	| 'circular-runout'
-	| 'total-runout';
+export type Characteristic = (typeof CHARACTERISTICS)[number];
 
-export type MaterialModifier = 'mmc' | 'lmc' | 'rfs';
+export const MATERIAL_MODIFIERS = ['mmc', 'lmc', 'rfs'] as const;
+export type MaterialModifier = (typeof MATERIAL_MODIFIERS)[number];
 
 export interface GeometricControl {
 	characteristic: Characteristic;
@@ -169,10 +175,6 @@ export function isSurfaceForm(control: Pick<GeometricControl, 'characteristic' |
 	return (c === 'straightness' || c === 'flatness') && control.appliesTo === 'surface';
 }
 
-export function isAsme(standard: GoverningStandard): boolean {
-	return standard === 'asme-y14.5-2018' || standard === 'asme-y14.5-2009';
-}
-
 /** The fewest decimals that show `value` exactly in `units` (capped at the grid). */
 export function exactPlaces(value: Length, units: Units): number {
 	let step = perUnit(units);
@@ -265,7 +267,7 @@ function envelopeFor(input: FeatureInput, spec: CalloutSpec): { applies: boolean
 	const median = medianControl(input.controls);
 	const { standard, assumed } = effectiveStandard(input.standard, spec, input.generalTolerance);
 	if (isAsme(standard)) {
-		const edition = standard === 'asme-y14.5-2018' ? 'ASME Y14.5-2018' : 'ASME Y14.5-2009';
+		const edition = STANDARDS[standard].label;
 		if (o.stock)
 			return { applies: false, reason: `${edition}: stock as furnished is exempt from Rule #1` };
 		if (o.freeState || spec.modifiers.includes('freeState'))

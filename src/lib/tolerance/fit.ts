@@ -22,22 +22,16 @@ import {
 } from './feature';
 import { classifyFit, type FitClassification } from './iso286';
 
-export type FitIntent =
-	| 'running'
-	| 'locational-clearance'
-	| 'transition'
-	| 'interference'
-	| 'floating-fastener'
-	| 'fixed-fastener';
-
-export const FIT_INTENTS: readonly FitIntent[] = [
+export const FIT_INTENTS = [
 	'running',
 	'locational-clearance',
 	'transition',
 	'interference',
 	'floating-fastener',
 	'fixed-fastener'
-];
+] as const;
+
+export type FitIntent = (typeof FIT_INTENTS)[number];
 
 export interface FitMemberInput {
 	callout?: string;

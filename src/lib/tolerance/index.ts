@@ -9,6 +9,7 @@ export {
 	parseIsoCode,
 	parseGrade,
 	classifyFit,
+	GRADES,
 	SHAFT_POSITIONS,
 	HOLE_POSITIONS
 } from './iso286';
@@ -28,7 +29,9 @@ export {
 	generalPerpendicularity,
 	generalSymmetry,
 	generalCircularRunout,
-	ISO_2768_2_STATUS
+	ISO_2768_2_STATUS,
+	LINEAR_CLASSES,
+	GEOMETRIC_CLASSES
 } from './iso2768';
 export type {
 	LinearClass,
@@ -48,9 +51,12 @@ export {
 	bonusTolerance,
 	effectiveStandard,
 	isSurfaceForm,
-	isAsme,
-	exactPlaces
+	exactPlaces,
+	CHARACTERISTICS,
+	MATERIAL_MODIFIERS
 } from './feature';
+export { GOVERNING_STANDARDS, STANDARDS, isAsme } from './drawing-context';
+export type { DrawingContext, Iso2768General } from './drawing-context';
 export type {
 	FeatureInput,
 	FeatureResult,

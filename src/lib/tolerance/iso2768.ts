@@ -18,7 +18,7 @@ import {
 } from './tables/iso2768';
 
 export type { GeometricClass, LinearClass } from './tables/iso2768';
-export { ISO_2768_2_STATUS } from './tables/iso2768';
+export { ISO_2768_2_STATUS, LINEAR_CLASSES, GEOMETRIC_CLASSES } from './tables/iso2768';
 
 export interface NotCovered {
 	ok: false;

@@ -19,6 +19,7 @@ import {
 } from './tables/iso286';
 
 export type { Grade } from './tables/iso286';
+export { GRADES } from './tables/iso286';
 
 export interface NotDefined {
 	ok: false;

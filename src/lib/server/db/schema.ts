@@ -12,6 +12,9 @@ import {
 	uniqueIndex,
 	uuid
 } from 'drizzle-orm/pg-core';
+import { UNITS } from '../../tolerance/decimal';
+import { GOVERNING_STANDARDS, type GeneralTolerance } from '../../tolerance/drawing-context';
+import type { RulebookTeam } from '../../tolerance/rulebook/types';
 
 // Auth.js tables (shape expected by @auth/drizzle-adapter); sessions are JWTs, so no sessions table.
 export const users = pgTable('users', {
@@ -118,11 +121,8 @@ export const teams = pgTable('teams', {
 	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 });
 
-export interface TeamSettings {
-	severityOverrides?: Record<string, 'critical' | 'major' | 'minor' | 'note'>;
-	/** The tightest IT grade the team's suppliers hold as a matter of course (rule LIM-06). */
-	capabilityGrade?: number;
-}
+/** The rulebook's team settings (severity overrides, the capability grade of LIM-06), as stored. */
+export type TeamSettings = Pick<RulebookTeam, 'severityOverrides' | 'capabilityGrade'>;
 
 export const memberships = pgTable(
 	'memberships',
@@ -217,15 +217,7 @@ export const revisionStates = [
 ] as const;
 export type RevisionState = (typeof revisionStates)[number];
 
-export type GeneralToleranceSetting =
-	| null
-	| {
-			kind: 'iso2768';
-			linear: 'f' | 'm' | 'c' | 'v';
-			geometric?: 'H' | 'K' | 'L';
-			envelope?: boolean;
-	  }
-	| { kind: 'decimal-places'; byPlaces: Record<string, string>; angle?: string };
+export type GeneralToleranceSetting = GeneralTolerance | null;
 
 export const drawings = pgTable(
 	'drawings',
@@ -238,10 +230,8 @@ export const drawings = pgTable(
 		title: text('title').notNull(),
 		partName: text('part_name').notNull().default(''),
 		material: text('material').notNull().default(''),
-		units: text('units', { enum: ['mm', 'in'] }).notNull(),
-		standard: text('standard', {
-			enum: ['asme-y14.5-2018', 'asme-y14.5-2009', 'iso-8015', 'unstated']
-		}).notNull(),
+		units: text('units', { enum: UNITS }).notNull(),
+		standard: text('standard', { enum: GOVERNING_STANDARDS }).notNull(),
 		generalTolerance: jsonb('general_tolerance').$type<GeneralToleranceSetting>(),
 		notes: text('notes').notNull().default(''),
 		version: integer('version').notNull().default(1),

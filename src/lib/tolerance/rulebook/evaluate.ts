@@ -4,6 +4,7 @@
  * fits) and, within a subject, in rule order. A run limited by `only` gives, for each subject
  * it judges, exactly the results a full run gives for it.
  */
+import { isAsme } from '../drawing-context';
 import { ISO_2768_2_STATUS } from '../iso2768';
 import { featureContext, value, type FeatureContext } from './context';
 import { toResult, type Finding, type Subject } from './emit';
@@ -299,10 +300,7 @@ function drawingRules(
 			fix: `Cite ${ISO_2768_2_STATUS.replacedBy} general geometric specifications, or keep the reference knowingly.`
 		});
 	}
-	if (
-		g?.kind === 'iso2768' &&
-		(drawing.standard === 'asme-y14.5-2018' || drawing.standard === 'asme-y14.5-2009')
-	) {
+	if (g?.kind === 'iso2768' && isAsme(drawing.standard)) {
 		out.push({
 			rule: 'DOC-02',
 			cause: 'iso-general-on-asme',

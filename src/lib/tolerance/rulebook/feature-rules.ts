@@ -5,9 +5,9 @@
  */
 import type { Tolerance } from '../callout-types';
 import { parseDecimal, roundToPlaces, type Length } from '../decimal';
+import { isAsme } from '../drawing-context';
 import {
 	ISO_ONLY_MODIFIERS,
-	isAsme,
 	isSurfaceForm,
 	type Characteristic,
 	type GeometricControl

@@ -6,6 +6,7 @@ import type {
 	GoverningStandard
 } from '../feature';
 import type { FitIntent } from '../fit';
+import type { Grade } from '../iso286';
 import type { RulebookIndex } from './evaluate';
 
 export const RULE_CODES = [
@@ -84,8 +85,8 @@ export interface RulebookFit {
 
 export interface RulebookTeam {
 	severityOverrides?: Partial<Record<RuleCode, Severity>>;
-	/** The finest IT grade the team's shops hold, e.g. 'IT6' or '6'. */
-	capabilityGrade?: string | null;
+	/** The finest IT grade the team's shops hold as a matter of course, e.g. 'IT6' (LIM-06). */
+	capabilityGrade?: Grade | null;
 }
 
 export interface RulebookInput {

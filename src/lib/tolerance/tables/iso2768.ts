@@ -12,8 +12,10 @@
  * each table starts where `from` says. null marks a gap the standard leaves (not covered).
  */
 
-export type LinearClass = 'f' | 'm' | 'c' | 'v';
-export type GeometricClass = 'H' | 'K' | 'L';
+export const LINEAR_CLASSES = ['f', 'm', 'c', 'v'] as const;
+export const GEOMETRIC_CLASSES = ['H', 'K', 'L'] as const;
+export type LinearClass = (typeof LINEAR_CLASSES)[number];
+export type GeometricClass = (typeof GEOMETRIC_CLASSES)[number];
 
 export interface Table<C extends string> {
 	/** Smallest size covered (inclusive), mm. */
