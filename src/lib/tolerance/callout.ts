@@ -1,28 +1,42 @@
-import { PER_INCH, scanDecimal, type Length, type Units } from './decimal';
+/*
+ * The callout grammar: sizes, tolerances, ISO classes, modifiers, quantities and depths, read
+ * with the scanner of ./callout-scanner.ts (threads in ./callout-thread.ts).
+ */
+import type { Length, Units } from './decimal';
 import type {
 	CalloutSpec,
 	CalloutSymbol,
 	Modifier,
 	ParseOptions,
 	ParseResult,
-	ThreadSpec,
 	Tolerance,
 	ToleranceClass,
 	WrittenValue
 } from './callout-types';
 
-/*
- * A hand-written scanner: one pass, no regular expressions, so a callout costs well under a
- * microsecond and bad text can never make it backtrack. Internally a failure is thrown as a
- * CalloutError and caught in parseCallout, which never throws.
- */
-
-class CalloutError {
-	constructor(
-		readonly message: string,
-		readonly position: number
-	) {}
-}
+import {
+	CalloutError,
+	DEPTH_SYMBOL,
+	DOT,
+	EN_DASH,
+	MINUS,
+	PLUS,
+	PLUS_MINUS,
+	SLASH,
+	Scanner,
+	TRUE_MINUS,
+	isDiameterSign,
+	isDigit,
+	isLetter,
+	isMinus,
+	isSpace
+} from './callout-scanner';
+import {
+	metricThread,
+	numberSizeDiameter,
+	unifiedThread,
+	unifiedThreadAhead
+} from './callout-thread';
 
 const HOLE_DEVIATIONS = new Set([
 	'A',
@@ -70,196 +84,6 @@ const TEXT_MODIFIERS: Record<string, Modifier> = {
 	CA: 'areaDiameter',
 	CV: 'volumeDiameter'
 };
-
-const MINUS = 45;
-const PLUS = 43;
-const SLASH = 47;
-const DOT = 46;
-const PLUS_MINUS = 0xb1;
-const TRUE_MINUS = 0x2212;
-const EN_DASH = 0x2013;
-const DEPTH_SYMBOL = 0x21a7;
-
-function isDigit(c: number): boolean {
-	return c >= 48 && c <= 57;
-}
-
-function isLetter(c: number): boolean {
-	return (c >= 65 && c <= 90) || (c >= 97 && c <= 122);
-}
-
-function isSpace(c: number): boolean {
-	return c === 32 || c === 9 || c === 0xa0 || (c >= 0x2000 && c <= 0x200a) || c === 0x202f;
-}
-
-function isDiameterSign(c: number): boolean {
-	// Ø, ø, ⌀ (U+2300), and ∅ which fonts often substitute for it.
-	return c === 0xd8 || c === 0xf8 || c === 0x2300 || c === 0x2205;
-}
-
-function isMinus(c: number): boolean {
-	return c === MINUS || c === TRUE_MINUS;
-}
-
-function describe(text: string, at: number): string {
-	const c = text.codePointAt(at) ?? 0;
-	if (isLetter(c)) {
-		let end = at;
-		while (end < text.length && isLetter(text.charCodeAt(end))) end++;
-		return `'${text.slice(at, end)}'`;
-	}
-	return `'${String.fromCodePoint(c)}'`;
-}
-
-class Scanner {
-	pos = 0;
-	end: number;
-	comma = false;
-
-	constructor(
-		readonly text: string,
-		readonly units: Units
-	) {
-		let end = text.length;
-		while (end > 0 && isSpace(text.charCodeAt(end - 1))) end--;
-		this.end = end;
-		while (this.pos < end && isSpace(text.charCodeAt(this.pos))) this.pos++;
-	}
-
-	peek(offset = 0): number {
-		const at = this.pos + offset;
-		return at < this.end ? this.text.charCodeAt(at) : -1;
-	}
-
-	skipSpaces(): boolean {
-		const start = this.pos;
-		while (this.pos < this.end && isSpace(this.text.charCodeAt(this.pos))) this.pos++;
-		return this.pos > start;
-	}
-
-	fail(message: string, at = this.pos): never {
-		throw new CalloutError(message, at);
-	}
-
-	unexpected(expected: string): never {
-		if (this.pos >= this.end) this.fail(`${expected}, but the callout ends here`, this.end - 1);
-		this.fail(`${expected}, not ${describe(this.text, this.pos)}`);
-	}
-
-	/** Matches a whole word, case-insensitive, not followed by another letter. */
-	word(upper: string): boolean {
-		const n = upper.length;
-		if (this.pos + n > this.end) return false;
-		for (let i = 0; i < n; i++) {
-			let c = this.text.charCodeAt(this.pos + i);
-			if (c >= 97 && c <= 122) c -= 32;
-			if (c !== upper.charCodeAt(i)) return false;
-		}
-		if (isLetter(this.peek(n))) return false;
-		this.pos += n;
-		return true;
-	}
-
-	integer(): number {
-		const start = this.pos;
-		let n = 0;
-		while (this.pos < this.end && isDigit(this.text.charCodeAt(this.pos))) {
-			n = n * 10 + this.text.charCodeAt(this.pos) - 48;
-			this.pos++;
-		}
-		if (this.pos === start) this.unexpected('expected a whole number');
-		if (this.pos - start > 9) this.fail('this number is too large', start);
-		return n;
-	}
-
-	/** An unsigned number: a decimal, or in inch a fraction (1/4) or mixed number (1 1/2). */
-	value(units: Units = this.units): WrittenValue {
-		const start = this.pos;
-		const c = this.peek();
-		if (!isDigit(c) && !(c === DOT || c === 44)) this.unexpected('expected a number');
-		const scanned = scanDecimal(this.text, start, this.end, units);
-		if (scanned === null) {
-			let i = start;
-			while (i < this.end && (isDigit(this.text.charCodeAt(i)) || this.text.charCodeAt(i) === DOT))
-				i++;
-			if (i - start > 16) this.fail('this number has more digits than a size can have', start);
-			if (isDigit(c) || isDigit(this.peek(1)))
-				this.fail(
-					`this number has more decimal places than Checkplate can hold exactly in ${units === 'mm' ? 'millimetres' : 'inches'}`,
-					start
-				);
-			this.unexpected('expected a number');
-		}
-		this.pos = scanned.end;
-		if (scanned.places > 0) {
-			if (this.text.charCodeAt(scanned.end - scanned.places - 1) === 44) this.comma = true;
-			return { value: scanned.value, places: scanned.places };
-		}
-		if (units === 'in') {
-			const whole = scanned.value / PER_INCH;
-			if (this.peek() === SLASH && this.isPlainFraction(this.pos + 1)) {
-				return this.fraction(0, whole, start);
-			}
-			// Mixed number: '1 1/2'.
-			const save = this.pos;
-			if (this.skipSpaces() && isDigit(this.peek())) {
-				let i = this.pos;
-				while (i < this.end && isDigit(this.text.charCodeAt(i))) i++;
-				if (i < this.end && this.text.charCodeAt(i) === SLASH && this.isPlainFraction(i + 1)) {
-					const numerator = this.integer();
-					return this.fraction(whole, numerator, start);
-				}
-			}
-			this.pos = save;
-		}
-		return { value: scanned.value, places: 0 };
-	}
-
-	/** After '/': digits not followed by a decimal point, so '1/4' rather than '1.000/0.998'. */
-	private isPlainFraction(at: number): boolean {
-		let i = at;
-		while (i < this.end && isDigit(this.text.charCodeAt(i))) i++;
-		if (i === at) return false;
-		const c = i < this.end ? this.text.charCodeAt(i) : -1;
-		const n = i + 1 < this.end ? this.text.charCodeAt(i + 1) : -1;
-		return !((c === DOT || c === 44) && isDigit(n));
-	}
-
-	/** At the '/' of an inch fraction; `whole` and `numerator` already read. */
-	private fraction(whole: number, numerator: number, start: number): WrittenValue {
-		this.pos++;
-		const denominator = this.integer();
-		if (denominator === 0) this.fail('a fraction cannot have a denominator of 0', start);
-		const numeratorValue = numerator * PER_INCH;
-		if (numeratorValue % denominator !== 0)
-			this.fail(
-				`${numerator}/${denominator} in is not an exact length; write it as a decimal`,
-				start
-			);
-		return {
-			value: whole * PER_INCH + numeratorValue / denominator,
-			places: 0,
-			fraction: { whole, numerator, denominator }
-		};
-	}
-
-	/** A signed deviation; a zero may go unsigned (ASME Y14.5: a single zero, no sign). */
-	deviation(): WrittenValue {
-		const start = this.pos;
-		const c = this.peek();
-		let negative = false;
-		if (c === PLUS) this.pos++;
-		else if (isMinus(c)) {
-			negative = true;
-			this.pos++;
-		}
-		const v = this.value();
-		if (c !== PLUS && !negative && v.value !== 0)
-			this.fail('a deviation needs its sign, e.g. +0.021 or -0.020', start);
-		if (negative && v.value !== 0) v.value = -v.value;
-		return v;
-	}
-}
 
 function toleranceClass(s: Scanner, at: number): ToleranceClass | null {
 	// Letters then the IT grade: H7, js6, ZC11, h01.
@@ -428,123 +252,6 @@ function closeParen(s: Scanner, openAt: number): void {
 		s.unexpected("expected ')'");
 	}
 	s.pos++;
-}
-
-/** True when a unified thread follows: '-' digits, optional space, 'UN'. */
-function unifiedThreadAhead(s: Scanner): boolean {
-	if (s.peek() !== MINUS) return false;
-	let i = s.pos + 1;
-	const text = s.text;
-	const start = i;
-	while (i < s.end && isDigit(text.charCodeAt(i))) i++;
-	if (i === start) return false;
-	while (i < s.end && isSpace(text.charCodeAt(i))) i++;
-	return (
-		i + 1 < s.end &&
-		(text.charCodeAt(i) | 32) === 117 /* u */ &&
-		(text.charCodeAt(i + 1) | 32) === 110 /* n */
-	);
-}
-
-function leftHand(s: Scanner): boolean {
-	const save = s.pos;
-	if (s.peek() === MINUS) s.pos++;
-	else s.skipSpaces();
-	if (s.word('LH')) return true;
-	s.pos = save;
-	return false;
-}
-
-function metricThread(s: Scanner): ThreadSpec {
-	s.pos++; // 'M'
-	const diameter = s.value('mm');
-	let pitch: WrittenValue | null = null;
-	const x = s.peek();
-	if (x === 120 || x === 88 || x === 0xd7) {
-		s.pos++;
-		pitch = s.value('mm');
-		if (pitch.value === 0) s.fail('a thread pitch cannot be zero', s.pos - 1);
-	}
-	let toleranceClass: string | null = null;
-	if (s.peek() === MINUS && isDigit(s.peek(1))) {
-		s.pos++;
-		toleranceClass = threadClass(s, 'metric');
-	}
-	return { system: 'metric', diameter, pitch, toleranceClass, leftHand: leftHand(s) };
-}
-
-function threadClass(s: Scanner, system: 'metric' | 'unified'): string {
-	// ISO 965-1: pitch-diameter then crest class, each grade digit + position letter (5g6g, 6H).
-	// ASME B1.1: class digit 1–3 + A (external) or B (internal).
-	const start = s.pos;
-	const text = s.text;
-	let i = start;
-	for (let part = 0; part < 2; part++) {
-		const d = i;
-		if (!isDigit(text.charCodeAt(i))) break;
-		i++;
-		const letter = i < s.end ? text.charCodeAt(i) : -1;
-		const ok =
-			system === 'metric'
-				? letter === 71 || letter === 72 || (letter >= 101 && letter <= 104)
-				: letter === 65 || letter === 66;
-		if (!ok) {
-			i = d;
-			break;
-		}
-		i++;
-		if (system === 'unified') break;
-	}
-	if (
-		i === start ||
-		isLetter(i < s.end ? text.charCodeAt(i) : -1) ||
-		isDigit(i < s.end ? text.charCodeAt(i) : -1)
-	) {
-		s.pos = start;
-		s.fail(
-			system === 'metric'
-				? 'expected an ISO 965 thread tolerance class such as 6H or 6g'
-				: 'expected a unified thread class such as 2A or 2B'
-		);
-	}
-	s.pos = i;
-	const cls = text.slice(start, i);
-	if (system === 'metric' && cls.length === 4) {
-		const a = cls.charCodeAt(1) < 97;
-		const b = cls.charCodeAt(3) < 97;
-		if (a !== b) s.fail('both parts of a thread class name the same side: 5H6H or 5g6g', start);
-	}
-	return cls;
-}
-
-function unifiedThread(s: Scanner, diameter: WrittenValue, numberSize: number | null): ThreadSpec {
-	s.pos++; // '-'
-	const tpiAt = s.pos;
-	const threadsPerInch = s.integer();
-	if (threadsPerInch === 0) s.fail('threads per inch cannot be zero', tpiAt);
-	s.skipSpaces();
-	const seriesAt = s.pos;
-	while (s.pos < s.end && isLetter(s.peek())) s.pos++;
-	const series = s.text.slice(seriesAt, s.pos).toUpperCase();
-	let toleranceClass: string | null = null;
-	if (s.peek() === MINUS && isDigit(s.peek(1))) {
-		s.pos++;
-		toleranceClass = threadClass(s, 'unified');
-	}
-	return {
-		system: 'unified',
-		diameter,
-		numberSize,
-		threadsPerInch,
-		series,
-		toleranceClass,
-		leftHand: leftHand(s)
-	};
-}
-
-/** ASME B1.1 number sizes: major diameter 0.060 + 0.013 n inch. */
-function numberSizeDiameter(n: number): WrittenValue {
-	return { value: (60 + 13 * n) * (PER_INCH / 1000), places: 3 };
 }
 
 function singleLimit(s: Scanner): 'min' | 'max' | null {

@@ -171,6 +171,16 @@ export function mulDiv(
 	return Number(divideRoundedBig(BigInt(value) * BigInt(numerator), BigInt(denominator), rounding));
 }
 
+/** value × numerator / denominator for factors beyond a safe integer, with one rounding. */
+export function mulDivBig(
+	value: Length,
+	numerator: bigint,
+	denominator: bigint,
+	rounding: Rounding
+): Length {
+	return Number(divideRoundedBig(BigInt(value) * numerator, denominator, rounding));
+}
+
 /** Count of units of the last place: 25.021 mm at 3 places → 25021. */
 function placeCount(value: Length, units: Units, places: number, rounding: Rounding): number {
 	const per = perUnit(units);

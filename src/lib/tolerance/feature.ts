@@ -348,33 +348,85 @@ function classFor(spec: CalloutSpec, internal: boolean) {
 	return null;
 }
 
-function limitsFor(input: FeatureInput, spec: CalloutSpec, internal: boolean): Limits {
-	const units = spec.units;
-	const isoPlaces = units === 'mm' ? 3 : 4;
+/** No limits, and why. */
+function noLimits(note: string, places: number): Limits {
+	return { upper: null, lower: null, source: 'none', note, places };
+}
+
+/** Basic, reference and thread callouts carry no size tolerance of their own. */
+function untoleranced(spec: CalloutSpec): Limits | null {
 	if (spec.kind === 'basic')
-		return {
-			upper: null,
-			lower: null,
-			source: 'none',
-			note: 'basic dimension: theoretically exact, no tolerance of its own',
-			places: spec.nominal?.places ?? 0
-		};
+		return noLimits(
+			'basic dimension: theoretically exact, no tolerance of its own',
+			spec.nominal?.places ?? 0
+		);
 	if (spec.kind === 'reference')
-		return {
-			upper: null,
-			lower: null,
-			source: 'none',
-			note: 'reference dimension: information only, no tolerance',
-			places: spec.nominal?.places ?? 0
-		};
+		return noLimits(
+			'reference dimension: information only, no tolerance',
+			spec.nominal?.places ?? 0
+		);
 	if (spec.kind === 'thread')
+		return noLimits(
+			`thread: its limits come from its tolerance class${spec.thread?.toleranceClass ? ` ${spec.thread.toleranceClass}` : ''}, not from a size tolerance`,
+			0
+		);
+	return null;
+}
+
+/** The limits an ISO 286 class gives at the nominal size. */
+function classLimits(nominal: Length, code: string, units: Units): Limits {
+	const isoPlaces = units === 'mm' ? 3 : 4;
+	const r = isoLimits(nominal, code);
+	if (!r.ok) return noLimits(`no limits: ${code} at this size is ${r.reason}`, isoPlaces);
+	return {
+		upper: r.upper,
+		lower: r.lower,
+		source: 'iso286',
+		note: `ISO 286-2 ${r.code}: IT ${formatLength(r.it, units, placesFor([r.it], units, isoPlaces))}`,
+		places: isoPlaces
+	};
+}
+
+/** The limits the drawing's general tolerance gives a size written with `written` places. */
+function generalLimits(
+	nominal: Length,
+	written: number,
+	g: GeneralTolerance | null | undefined,
+	units: Units
+): Limits {
+	if (!g)
+		return noLimits(
+			'no limits: no tolerance on the callout and no general tolerance on the drawing',
+			written
+		);
+	if (g.kind === 'iso2768') {
+		// ISO 2768 is a metric table: read the size in mm, whatever the drawing's unit.
+		const r = generalLinearTolerance(nominal, g.linear);
+		if (!r.ok) return noLimits(`no limits: ISO 2768-${g.linear} ${r.reason}`, written);
+		const dev = r.deviation;
 		return {
-			upper: null,
-			lower: null,
-			source: 'none',
-			note: `thread: its limits come from its tolerance class${spec.thread?.toleranceClass ? ` ${spec.thread.toleranceClass}` : ''}, not from a size tolerance`,
-			places: 0
+			upper: nominal + dev,
+			lower: nominal - dev,
+			source: 'general',
+			note: `general tolerance ISO 2768-${g.linear}: ±${r.published} mm`,
+			places: Math.max(written, exactPlaces(dev, units))
 		};
+	}
+	const r = titleBlockTolerance(written, g, units);
+	if (!r.ok) return noLimits(`no limits: ${r.reason}`, written);
+	return {
+		upper: nominal + r.deviation,
+		lower: nominal - r.deviation,
+		source: 'general',
+		note: `general tolerance from the title block: ${written} places ±${r.published}`,
+		places: Math.max(written, exactPlaces(r.deviation, units))
+	};
+}
+
+/** The limits of size: stated on the callout, from its ISO class, or from the general tolerance. */
+function limitsFor(input: FeatureInput, spec: CalloutSpec, internal: boolean): Limits {
+	const fixed = untoleranced(spec);
+	if (fixed) return fixed;
 	const stated = calloutLimits(spec);
 	const cls = classFor(spec, internal);
 	if (stated) {
@@ -389,78 +441,9 @@ function limitsFor(input: FeatureInput, spec: CalloutSpec, internal: boolean): L
 		};
 	}
 	const nominal = spec.nominal?.value ?? null;
-	if (cls && nominal !== null) {
-		const r = isoLimits(nominal, cls.code);
-		if (!r.ok)
-			return {
-				upper: null,
-				lower: null,
-				source: 'none',
-				note: `no limits: ${cls.code} at this size is ${r.reason}`,
-				places: isoPlaces
-			};
-		return {
-			upper: r.upper,
-			lower: r.lower,
-			source: 'iso286',
-			note: `ISO 286-2 ${r.code}: IT ${formatLength(r.it, units, placesFor([r.it], units, isoPlaces))}`,
-			places: isoPlaces
-		};
-	}
-	if (nominal === null)
-		return {
-			upper: null,
-			lower: null,
-			source: 'none',
-			note: 'no limits: the callout has no size',
-			places: 0
-		};
-	const g = input.generalTolerance;
-	const written = spec.nominal?.places ?? 0;
-	if (!g)
-		return {
-			upper: null,
-			lower: null,
-			source: 'none',
-			note: 'no limits: no tolerance on the callout and no general tolerance on the drawing',
-			places: written
-		};
-	if (g.kind === 'iso2768') {
-		// ISO 2768 is a metric table: read the size in mm, whatever the drawing's unit.
-		const r = generalLinearTolerance(nominal, g.linear);
-		if (!r.ok)
-			return {
-				upper: null,
-				lower: null,
-				source: 'none',
-				note: `no limits: ISO 2768-${g.linear} ${r.reason}`,
-				places: written
-			};
-		const dev = r.deviation;
-		return {
-			upper: nominal + dev,
-			lower: nominal - dev,
-			source: 'general',
-			note: `general tolerance ISO 2768-${g.linear}: ±${r.published} mm`,
-			places: Math.max(written, exactPlaces(dev, units))
-		};
-	}
-	const r = titleBlockTolerance(written, g, units);
-	if (!r.ok)
-		return {
-			upper: null,
-			lower: null,
-			source: 'none',
-			note: `no limits: ${r.reason}`,
-			places: written
-		};
-	return {
-		upper: nominal + r.deviation,
-		lower: nominal - r.deviation,
-		source: 'general',
-		note: `general tolerance from the title block: ${written} places ±${r.published}`,
-		places: Math.max(written, exactPlaces(r.deviation, units))
-	};
+	if (cls && nominal !== null) return classLimits(nominal, cls.code, spec.units);
+	if (nominal === null) return noLimits('no limits: the callout has no size', 0);
+	return generalLimits(nominal, spec.nominal?.places ?? 0, input.generalTolerance, spec.units);
 }
 
 function resolveSpec(input: FeatureInput): { spec: CalloutSpec } | FeatureError {

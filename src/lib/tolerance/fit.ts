@@ -4,7 +4,8 @@
  * temperature (PRODUCT.md §4). Exact Lengths; strings in the hole's unit.
  */
 import type { CalloutSpec } from './callout-types';
-import { formatLength, mulDiv, parseDecimal, type Length, type Units } from './decimal';
+import { formatLength, type Length, type Units } from './decimal';
+import { fastenerBudget, readLength, type FastenerBudget, type FastenerInput } from './fastener';
 import {
 	evaluateFeature,
 	exactPlaces,
@@ -21,6 +22,10 @@ import {
 	type GoverningStandard
 } from './feature';
 import { classifyFit, type FitClassification } from './iso286';
+import { expand, readThermal, type TemperatureInput } from './thermal';
+
+export type { FastenerBudget, FastenerInput } from './fastener';
+export type { TemperatureInput } from './thermal';
 
 export const FIT_INTENTS = [
 	'running',
@@ -41,27 +46,6 @@ export interface FitMemberInput {
 	controls?: GeometricControl[];
 	overrides?: FeatureOverrides;
 	notes?: string;
-}
-
-export interface FastenerInput {
-	callout: string;
-	units?: Units;
-	/** Position tolerance of the part that fixes the fastener (T₂: tapped or press-fit hole). */
-	fixedPosition?: string;
-	/**
-	 * When the fixed part's position tolerance is not projected: P, the greatest projection of
-	 * the fastener (or thickness of the part with the clearance hole), and D, the least depth of
-	 * thread or thickness of the part that fixes the fastener.
-	 */
-	projection?: { P: string; D: string };
-}
-
-export interface TemperatureInput {
-	/** Operating temperature in °C; the standard reference temperature is 20 °C (ISO 1). */
-	operating: string;
-	/** Linear expansion coefficients in 10⁻⁶/K (µm per m and kelvin). */
-	holeCoefficient: string;
-	shaftCoefficient: string;
 }
 
 export interface FitInput {
@@ -89,20 +73,6 @@ export interface FitError {
 export interface FitCheck {
 	what: string;
 	ok: boolean;
-	text: string;
-}
-
-export interface FastenerBudget {
-	formula: 'floating' | 'fixed' | 'fixed-unprojected';
-	/** H: the clearance hole at MMC. F: the fastener at MMC. */
-	H: Length;
-	F: Length;
-	/** H − F: the position tolerance the pair may share. */
-	available: Length;
-	/** T (floating), T₁ + T₂ (fixed), or the hole size the out-of-squareness formula requires. */
-	used: Length | null;
-	required: Length | null;
-	ok: boolean | null;
 	text: string;
 }
 
@@ -240,30 +210,6 @@ function bound(so: Length | null, value: Length, smallest: boolean): Length {
 	return smallest === so < value ? so : value;
 }
 
-function readLength(text: string | undefined, units: Units): Length | null | undefined {
-	if (text === undefined || text.trim() === '') return undefined;
-	const v = parseDecimal(text.trim(), units);
-	return v === null ? null : v.value;
-}
-
-const SCALE = 10n ** 20n;
-
-/** value × (1 + α·Δθ·10⁻⁶), one rounding to the grid (half away from zero). */
-function expand(value: Length, alpha: bigint, deltaT: bigint): Length {
-	// alpha and deltaT are decimals × 10⁷ each (read on the mm grid), so α·Δθ carries 10¹⁴.
-	const numerator = BigInt(value) * (SCALE + alpha * deltaT);
-	const q = numerator / SCALE;
-	const r = numerator - q * SCALE;
-	const twice = 2n * (r < 0n ? -r : r);
-	if (twice >= SCALE) return Number(r > 0n ? q + 1n : q - 1n);
-	return Number(q);
-}
-
-function readScaled(text: string): bigint | null {
-	const v = parseDecimal(text.trim(), 'mm');
-	return v === null ? null : BigInt(v.value);
-}
-
 /** A clearance in the hole's unit with at least the hole's places, more where it needs them. */
 function clearanceText(value: Length, units: Units, places: number): string {
 	return formatLength(value, units, Math.max(places, exactPlaces(value, units)));
@@ -312,88 +258,6 @@ function defaultChecks(
 	return checks;
 }
 
-function fastenerBudget(
-	hole: FeatureValues,
-	fastener: FeatureValues,
-	input: FastenerInput | undefined,
-	intent: FitIntent,
-	units: Units
-): FastenerBudget | FitError | null {
-	if (hole.mmc === null || fastener.mmc === null) return null;
-	const H = hole.mmc;
-	const F = fastener.mmc;
-	const available = H - F;
-	const position = hole.controls.find((c) => c.control.characteristic === 'position');
-	const T1 = position ? position.value : null;
-	if (intent === 'floating-fastener') {
-		return {
-			formula: 'floating',
-			H,
-			F,
-			available,
-			used: T1,
-			required: null,
-			ok: T1 === null ? null : T1 <= available,
-			text: 'floating fastener: T = H − F for each part (ASME Y14.5 Appendix B)'
-		};
-	}
-	const T2 = readLength(input?.fixedPosition, units);
-	if (T2 === null)
-		return {
-			ok: false,
-			member: 'fastener',
-			message: `'${input?.fixedPosition}' is not a position tolerance`,
-			position: null,
-			field: 'controls'
-		};
-	const used = T1 !== null && T2 !== undefined ? T1 + T2 : null;
-	if (input?.projection) {
-		const P = readLength(input.projection.P, units);
-		const D = readLength(input.projection.D, units);
-		if (!P || !D || P < 0 || D <= 0)
-			return {
-				ok: false,
-				member: 'fastener',
-				message: 'the projection P and depth D must be sizes above zero',
-				position: null,
-				field: 'controls'
-			};
-		if (T1 === null || T2 === undefined)
-			return {
-				formula: 'fixed-unprojected',
-				H,
-				F,
-				available,
-				used,
-				required: null,
-				ok: null,
-				text: 'fixed fastener without a projected zone: needs both position tolerances'
-			};
-		// H = F + T₁ + T₂(1 + 2P/D), rounded up: the hole must be at least this large.
-		const required = F + T1 + mulDiv(T2, D + 2 * P, D, 'up');
-		return {
-			formula: 'fixed-unprojected',
-			H,
-			F,
-			available,
-			used,
-			required,
-			ok: H >= required,
-			text: 'fixed fastener, tolerance not projected: H = F + T₁ + T₂(1 + 2P/D) (ASME Y14.5 Appendix B)'
-		};
-	}
-	return {
-		formula: 'fixed',
-		H,
-		F,
-		available,
-		used,
-		required: null,
-		ok: used === null ? null : used <= available,
-		text: "fixed fastener: T₁ + T₂ = H − F, with the fixed part's tolerance projected (ASME Y14.5 Appendix B)"
-	};
-}
-
 /**
  * Clearances, classification and verdict of one fit, without the text: what evaluateFit works
  * out, for callers that judge many fits. The members come back as FeatureValues. Never throws.
@@ -412,76 +276,80 @@ export function evaluateFit(input: FitInput): FitResult {
 	return e;
 }
 
-function fitWith(input: FitInput, text: boolean): FitValues | FitError {
+type Members =
+	{ hole: FeatureValues; shaft: FeatureValues; memberKind: 'shaft' | 'fastener' } | FitError;
+
+/** Both members evaluated (with their text when `text` is set). */
+function members(input: FitInput, text: boolean): Members {
 	const hole = member(input.hole, true, input, text);
 	if (!hole.ok) return { ...hole, member: 'hole' };
-	let shaft: FeatureValues | FeatureError;
-	let memberKind: 'shaft' | 'fastener';
 	if (input.shaft) {
-		shaft = member(input.shaft, false, input, text);
-		memberKind = 'shaft';
+		const shaft = member(input.shaft, false, input, text);
 		if (!shaft.ok) return { ...shaft, member: 'shaft' };
-	} else if (input.fastener) {
-		shaft = fastenerMember(input.fastener, input, text);
-		memberKind = 'fastener';
-		if (!shaft.ok) return { ...shaft, member: 'fastener' };
-	} else {
-		return {
-			ok: false,
-			member: 'fit',
-			message: 'a fit needs a shaft or a fastener',
-			position: null,
-			field: 'callout'
-		};
+		return { hole, shaft, memberKind: 'shaft' };
 	}
-	const units = hole.units;
-	const intent = input.intent ?? null;
-	const minClearance =
-		hole.lower !== null && shaft.upper !== null ? hole.lower - shaft.upper : null;
-	const maxClearance =
-		hole.upper !== null && shaft.lower !== null ? hole.upper - shaft.lower : null;
-	const classification =
-		minClearance !== null && maxClearance !== null ? classifyFit(minClearance, maxClearance) : null;
+	if (input.fastener) {
+		const shaft = fastenerMember(input.fastener, input, text);
+		if (!shaft.ok) return { ...shaft, member: 'fastener' };
+		return { hole, shaft, memberKind: 'fastener' };
+	}
+	return {
+		ok: false,
+		member: 'fit',
+		message: 'a fit needs a shaft or a fastener',
+		position: null,
+		field: 'callout'
+	};
+}
 
+interface AtBoundary {
+	controlled: boolean;
+	min: Length | null;
+	max: Length | null;
+	note: string | null;
+}
+
+/** Clearances between the members' mating boundaries (VC, envelope at MMC). */
+function boundaryClearances(hole: FeatureValues, shaft: FeatureValues): AtBoundary {
 	const hb = matingBoundary(hole);
 	const sb = matingBoundary(shaft);
-	let minClearanceAtBoundary: Length | null = null;
-	let maxClearanceAtBoundary: Length | null = null;
-	let boundaryNote: string | null = null;
-	if (hb.controlled || sb.controlled) {
-		if (hb.mmcSide !== null && sb.mmcSide !== null)
-			minClearanceAtBoundary = hb.mmcSide - sb.mmcSide;
-		else
-			boundaryNote = `nothing bounds the ${hb.mmcSide === null ? 'hole' : 'shaft'}'s mating envelope at MMC (no envelope and no MMC control)`;
-		if (hb.lmcSide !== null && sb.lmcSide !== null)
-			maxClearanceAtBoundary = hb.lmcSide - sb.lmcSide;
-	}
+	const out: AtBoundary = {
+		controlled: hb.controlled || sb.controlled,
+		min: null,
+		max: null,
+		note: null
+	};
+	if (!out.controlled) return out;
+	if (hb.mmcSide !== null && sb.mmcSide !== null) out.min = hb.mmcSide - sb.mmcSide;
+	else
+		out.note = `nothing bounds the ${hb.mmcSide === null ? 'hole' : 'shaft'}'s mating envelope at MMC (no envelope and no MMC control)`;
+	if (hb.lmcSide !== null && sb.lmcSide !== null) out.max = hb.lmcSide - sb.lmcSide;
+	return out;
+}
 
-	const fmtPlaces = placesFor(
-		[minClearance, maxClearance, minClearanceAtBoundary, maxClearanceAtBoundary],
-		units,
-		hole.places
-	);
-	const hp = hole.places;
-	const checks = defaultChecks(intent, minClearance, maxClearance, units, hp);
-	const reqMin = readLength(input.requiredMinClearance, units);
-	if (reqMin === null)
-		return {
-			ok: false,
-			member: 'fit',
-			message: `'${input.requiredMinClearance}' is not a clearance`,
-			position: null,
-			field: 'requiredMinClearance'
-		};
-	const reqMax = readLength(input.requiredMaxClearance, units);
-	if (reqMax === null)
-		return {
-			ok: false,
-			member: 'fit',
-			message: `'${input.requiredMaxClearance}' is not a clearance`,
-			position: null,
-			field: 'requiredMaxClearance'
-		};
+function clearanceError(
+	field: 'requiredMinClearance' | 'requiredMaxClearance',
+	text?: string
+): FitError {
+	return {
+		ok: false,
+		member: 'fit',
+		message: `'${text}' is not a clearance`,
+		position: null,
+		field
+	};
+}
+
+/** The checks of stated minimum and maximum clearances. */
+function requiredChecks(
+	reqMin: Length | undefined,
+	reqMax: Length | undefined,
+	minClearance: Length | null,
+	maxClearance: Length | null,
+	units: Units,
+	hp: number
+): FitCheck[] {
+	const checks: FitCheck[] = [];
 	if (reqMin !== undefined) {
 		checks.push({
 			what: `minimum clearance at least ${clearanceText(reqMin, units, hp)}`,
@@ -502,78 +370,115 @@ function fitWith(input: FitInput, text: boolean): FitValues | FitError {
 					: `maximum clearance ${clearanceText(maxClearance, units, hp)}`
 		});
 	}
-	if (hb.controlled || sb.controlled) {
-		const floor =
-			reqMin ??
-			(intent === 'running'
-				? 1
-				: intent === 'locational-clearance' ||
-					  intent === 'floating-fastener' ||
-					  intent === 'fixed-fastener'
-					? 0
-					: null);
-		if (floor !== null) {
-			checks.push({
-				what: 'assembles at the boundaries (virtual condition, envelope)',
-				ok: minClearanceAtBoundary !== null && minClearanceAtBoundary >= floor,
-				text:
-					minClearanceAtBoundary === null
-						? (boundaryNote ?? 'boundary unknown')
-						: `minimum clearance at the boundaries ${clearanceText(minClearanceAtBoundary, units, hp)}`
-			});
-		}
-	}
+	return checks;
+}
+
+/** The least clearance the boundaries must leave: stated, or what the intent implies. */
+function boundaryFloor(intent: FitIntent | null, reqMin: Length | undefined): Length | null {
+	if (reqMin !== undefined) return reqMin;
+	if (intent === 'running') return 1;
+	if (
+		intent === 'locational-clearance' ||
+		intent === 'floating-fastener' ||
+		intent === 'fixed-fastener'
+	)
+		return 0;
+	return null;
+}
+
+function boundaryCheck(b: AtBoundary, floor: Length, units: Units, hp: number): FitCheck {
+	return {
+		what: 'assembles at the boundaries (virtual condition, envelope)',
+		ok: b.min !== null && b.min >= floor,
+		text:
+			b.min === null
+				? (b.note ?? 'boundary unknown')
+				: `minimum clearance at the boundaries ${clearanceText(b.min, units, hp)}`
+	};
+}
+
+function fastenerCheck(b: FastenerBudget, units: Units, hp: number): FitCheck {
+	return {
+		what: b.text,
+		ok: b.ok === true,
+		text: `H − F = ${clearanceText(b.available, units, hp)}${b.used !== null ? `, position tolerance ${clearanceText(b.used, units, hp)}` : ''}${b.required !== null ? `, hole needed ${clearanceText(b.required, units, hp)}` : ''}`
+	};
+}
+
+/** The clearances at the operating temperature, null without one, or what is wrong with it. */
+function temperatureResult(
+	input: TemperatureInput | undefined,
+	hole: FeatureValues,
+	shaft: FeatureValues
+): FitValues['temperature'] | FitError {
+	if (!input) return null;
+	const t = readThermal(input);
+	if (t === null)
+		return {
+			ok: false,
+			member: 'fit',
+			message: 'the temperature and both expansion coefficients must be decimal numbers',
+			position: null,
+			field: 'temperature'
+		};
+	if (hole.lower === null || hole.upper === null || shaft.lower === null || shaft.upper === null)
+		return null;
+	const minT = expand(hole.lower, t.hole, t.deltaT) - expand(shaft.upper, t.shaft, t.deltaT);
+	const maxT = expand(hole.upper, t.hole, t.deltaT) - expand(shaft.lower, t.shaft, t.deltaT);
+	return {
+		operating: t.operating,
+		minClearance: minT,
+		maxClearance: maxT,
+		classification: classifyFit(minT, maxT)
+	};
+}
+
+function fitWith(input: FitInput, text: boolean): FitValues | FitError {
+	const m = members(input, text);
+	if ('ok' in m) return m;
+	const { hole, shaft, memberKind } = m;
+	const units = hole.units;
+	const intent = input.intent ?? null;
+	const minClearance =
+		hole.lower !== null && shaft.upper !== null ? hole.lower - shaft.upper : null;
+	const maxClearance =
+		hole.upper !== null && shaft.lower !== null ? hole.upper - shaft.lower : null;
+	const classification =
+		minClearance !== null && maxClearance !== null ? classifyFit(minClearance, maxClearance) : null;
+	const atBoundary = boundaryClearances(hole, shaft);
+
+	const hp = hole.places;
+	const reqMin = readLength(input.requiredMinClearance, units);
+	if (reqMin === null) return clearanceError('requiredMinClearance', input.requiredMinClearance);
+	const reqMax = readLength(input.requiredMaxClearance, units);
+	if (reqMax === null) return clearanceError('requiredMaxClearance', input.requiredMaxClearance);
+	const checks = defaultChecks(intent, minClearance, maxClearance, units, hp);
+	checks.push(...requiredChecks(reqMin, reqMax, minClearance, maxClearance, units, hp));
+	const floor = atBoundary.controlled ? boundaryFloor(intent, reqMin) : null;
+	if (floor !== null) checks.push(boundaryCheck(atBoundary, floor, units, hp));
 
 	let fastener: FastenerBudget | null = null;
 	if (intent === 'floating-fastener' || intent === 'fixed-fastener') {
 		const budget = fastenerBudget(hole, shaft, input.fastener, intent, units);
-		if (budget && 'member' in budget) return budget;
-		fastener = budget;
-		if (fastener && fastener.ok !== null) {
-			checks.push({
-				what: fastener.text,
-				ok: fastener.ok,
-				text: `H − F = ${clearanceText(fastener.available, units, hp)}${fastener.used !== null ? `, position tolerance ${clearanceText(fastener.used, units, hp)}` : ''}${fastener.required !== null ? `, hole needed ${clearanceText(fastener.required, units, hp)}` : ''}`
-			});
-		}
-	}
-
-	let temperature: FitEvaluation['temperature'] = null;
-	if (input.temperature) {
-		const operating = readScaled(input.temperature.operating);
-		const ah = readScaled(input.temperature.holeCoefficient);
-		const as = readScaled(input.temperature.shaftCoefficient);
-		if (operating === null || ah === null || as === null)
+		if (budget && !('H' in budget))
 			return {
 				ok: false,
-				member: 'fit',
-				message: 'the temperature and both expansion coefficients must be decimal numbers',
+				member: 'fastener',
+				message: budget.message,
 				position: null,
-				field: 'temperature'
+				field: 'controls'
 			};
-		if (
-			hole.lower !== null &&
-			hole.upper !== null &&
-			shaft.lower !== null &&
-			shaft.upper !== null
-		) {
-			const dT = operating - 20n * 10_000_000n;
-			const minT = expand(hole.lower, ah, dT) - expand(shaft.upper, as, dT);
-			const maxT = expand(hole.upper, ah, dT) - expand(shaft.lower, as, dT);
-			temperature = {
-				operating: input.temperature.operating.trim(),
-				minClearance: minT,
-				maxClearance: maxT,
-				classification: classifyFit(minT, maxT)
-			};
-		}
+		fastener = budget;
+		if (fastener && fastener.ok !== null) checks.push(fastenerCheck(fastener, units, hp));
 	}
 
-	const verdict = checks.length === 0 ? 'undetermined' : allPass(checks) ? 'pass' : 'fail';
+	const temperature = temperatureResult(input.temperature, hole, shaft);
+	if (temperature && 'ok' in temperature) return temperature;
+
 	return {
 		ok: true,
 		units,
-		places: fmtPlaces,
+		places: placesFor([minClearance, maxClearance, atBoundary.min, atBoundary.max], units, hp),
 		intent,
 		hole,
 		shaft,
@@ -582,11 +487,11 @@ function fitWith(input: FitInput, text: boolean): FitValues | FitError {
 		minClearance,
 		maxClearance,
 		classification,
-		minClearanceAtBoundary,
-		maxClearanceAtBoundary,
-		boundaryNote,
+		minClearanceAtBoundary: atBoundary.min,
+		maxClearanceAtBoundary: atBoundary.max,
+		boundaryNote: atBoundary.note,
 		checks,
-		verdict,
+		verdict: checks.length === 0 ? 'undetermined' : allPass(checks) ? 'pass' : 'fail',
 		fastener,
 		temperature
 	};

@@ -4,12 +4,12 @@
  * fits) and, within a subject, in rule order. A run limited by `only` gives, for each subject
  * it judges, exactly the results a full run gives for it.
  */
-import { isAsme } from '../drawing-context';
-import { ISO_2768_2_STATUS } from '../iso2768';
-import { featureContext, value, type FeatureContext } from './context';
+import { featureContext, type FeatureContext } from './context';
 import { toResult, type Finding, type Subject } from './emit';
 import { featureRules, type Membership } from './feature-rules';
-import { evaluateFitFor, fitRules } from './fit-rules';
+import { drawingNotationRules } from './rules-doc';
+import { standardRule } from './rules-env';
+import { evaluateFitFor, fitRules } from './rules-fit';
 import {
 	RULE_CODES,
 	type RuleResult,
@@ -263,56 +263,8 @@ function drawingRules(
 	contexts: () => Iterable<FeatureContext>
 ): Finding[] {
 	const out: Finding[] = [];
-	const g = drawing.generalTolerance;
-	if (drawing.standard === 'unstated') {
-		let iso = g?.kind === 'iso2768';
-		if (!iso) for (const c of contexts()) if (c.assumed) iso = true;
-		out.push({
-			rule: 'ENV-04',
-			cause: iso ? 'iso-assumed' : 'undetermined',
-			message: iso
-				? 'No governing standard is stated; ISO GPS notation is present, so ISO 8015 is assumed.'
-				: 'No governing standard is stated, so whether the envelope applies is undetermined.',
-			values: [
-				value('standard', null, 'unstated'),
-				value('ISO notation', null, iso ? 'present' : 'none')
-			],
-			line: iso
-				? 'standard unstated; ISO notation present → ISO 8015 by invocation (independency)'
-				: 'standard unstated; no ISO notation → envelope (Rule #1) or independency undetermined',
-			fix: 'State the governing standard in the title block.'
-		});
-	}
-	if (g?.kind === 'iso2768' && g.geometric) {
-		out.push({
-			rule: 'DOC-02',
-			cause: 'withdrawn-iso-2768-2',
-			message: `ISO 2768-${g.linear}${g.geometric} cites ISO 2768-2 (class ${g.geometric}), withdrawn in ${ISO_2768_2_STATUS.withdrawn}.`,
-			values: [
-				value(
-					'general tolerance',
-					null,
-					`ISO 2768-${g.linear}${g.geometric}${g.envelope ? '-E' : ''}`
-				),
-				value('replaced by', null, ISO_2768_2_STATUS.replacedBy)
-			],
-			line: `ISO 2768-${g.linear}${g.geometric}: ISO 2768-2 withdrawn ${ISO_2768_2_STATUS.withdrawn}, replaced by ${ISO_2768_2_STATUS.replacedBy}`,
-			fix: `Cite ${ISO_2768_2_STATUS.replacedBy} general geometric specifications, or keep the reference knowingly.`
-		});
-	}
-	if (g?.kind === 'iso2768' && isAsme(drawing.standard)) {
-		out.push({
-			rule: 'DOC-02',
-			cause: 'iso-general-on-asme',
-			message: 'An ISO 2768 general tolerance on an ASME Y14.5 drawing.',
-			values: [
-				value('general tolerance', null, `ISO 2768-${g.linear}`),
-				value('standard', null, drawing.standard)
-			],
-			line: `ISO 2768-${g.linear} with ${drawing.standard}`,
-			fix: 'State the general tolerance in the system of the drawing.'
-		});
-	}
+	standardRule(drawing, contexts, out);
+	drawingNotationRules(drawing, out);
 	return sortFindings(out);
 }
 
