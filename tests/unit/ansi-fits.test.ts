@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { PER_THOU, parseDecimal } from '../../src/lib/tolerance/decimal';
+import { PER_THOU, ZERO, parseDecimal } from '../../src/lib/tolerance/decimal';
 import { ANSI_FIT_CLASSES, ansiFit, thousandths } from '../../src/lib/tolerance/ansi-fits';
 import { ANSI_B4_1, type AnsiFitClass } from '../../src/lib/tolerance/tables/ansi-b4-1';
 
@@ -161,7 +161,7 @@ describe('ANSI B4.1 lookups', () => {
 
 	test('not covered: outside the held ranges, and classes that start higher', () => {
 		expect(ansiFit('RC4', inch('19.7')).ok).toBe(false);
-		expect(ansiFit('RC4', 0).ok).toBe(false);
+		expect(ansiFit('RC4', ZERO).ok).toBe(false);
 		const lt3 = ansiFit('LT3', inch('0.2'));
 		expect(!lt3.ok && lt3.reason).toContain('over 0.24 in');
 		const fn3 = ansiFit('FN3', inch('0.5'));

@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import {
 	PER_INCH,
 	PER_MM,
+	toLength,
 	formatCallout,
 	parseCallout,
 	type CalloutSpec,
@@ -23,7 +24,7 @@ function written(u: Units, minCount: number, maxCount: number) {
 		)
 		.map(([places, count]): WrittenValue => {
 			const per = u === 'mm' ? PER_MM : PER_INCH;
-			return { value: count * (per / 10 ** places), places };
+			return { value: toLength(count * (per / 10 ** places)), places };
 		});
 }
 

@@ -5,6 +5,7 @@ import {
 	PER_MM,
 	abs,
 	compare,
+	toLength,
 	convertLimitsInward,
 	formatLength,
 	fromMicrometres,
@@ -88,7 +89,7 @@ describe('formatLength', () => {
 		[PER_MM, 'in', 8, {}, '0.03937008'],
 		[PER_INCH, 'mm', 1, {}, '25.4']
 	] as const)('%i in %s to %i places', (v, units, places, opts, expected) => {
-		expect(formatLength(v, units, places, opts)).toBe(expected);
+		expect(formatLength(toLength(v), units, places, opts)).toBe(expected);
 	});
 });
 
@@ -127,16 +128,26 @@ describe('conversions and scaling', () => {
 	});
 
 	it('compares', () => {
-		expect(compare(1, 2)).toBe(-1);
-		expect(compare(2, 2)).toBe(0);
-		expect(min(-3, 2)).toBe(-3);
-		expect(max(-3, 2)).toBe(2);
-		expect(abs(-3)).toBe(3);
+		const [a, b, c] = [toLength(1), toLength(2), toLength(-3)];
+		expect(compare(a, b)).toBe(-1);
+		expect(compare(b, b)).toBe(0);
+		expect(min(c, b)).toBe(-3);
+		expect(max(c, b)).toBe(2);
+		expect(abs(c)).toBe(3);
+	});
+
+	it('a Length is made only from an exact count: a float is refused at compile time and at run time', () => {
+		// @ts-expect-error a plain number is not a Length (svelte-check fails if this compiles)
+		expect(formatLength(25.4, 'mm', 1)).toBe('0.0');
+		expect(() => toLength(0.5)).toThrow(RangeError);
+		expect(() => toLength(2 ** 53)).toThrow(RangeError);
+		expect(toLength(-0)).toBe(0);
+		expect(Object.is(toLength(-0), -0)).toBe(false);
 	});
 });
 
 describe('properties', () => {
-	const length = fc.integer({ min: -40_000_000_000, max: 40_000_000_000 });
+	const length = fc.integer({ min: -40_000_000_000, max: 40_000_000_000 }).map(toLength);
 	const mmText = fc
 		.tuple(fc.nat({ max: 3150 }), fc.integer({ min: 0, max: 7 }), fc.nat({ max: 9_999_999 }))
 		.map(([whole, places, digits]) =>
@@ -163,8 +174,8 @@ describe('properties', () => {
 			fc.property(mmText, mmText, fc.integer({ min: 0, max: 6 }), (a, b, places) => {
 				const x = parseDecimal(a, 'mm')!;
 				const y = parseDecimal(b, 'mm')!;
-				const lower = Math.min(x.value, y.value);
-				const upper = Math.max(x.value, y.value);
+				const lower = min(x.value, y.value);
+				const upper = max(x.value, y.value);
 				const inch = convertLimitsInward(lower, upper, 'in', places);
 				const back = convertLimitsInward(inch.lower, inch.upper, 'mm', 3);
 				return (

@@ -1,11 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
-import {
-	PER_MICROMETRE,
-	PER_THOU,
-	formatLength,
-	type Length
-} from '../../src/lib/tolerance/decimal';
+import { PER_MICROMETRE, PER_THOU, formatLength, toLength } from '../../src/lib/tolerance/decimal';
 import { evaluateFeature, type GeometricControl } from '../../src/lib/tolerance/feature';
 import { evaluateFit, type FitEvaluation } from '../../src/lib/tolerance/fit';
 
@@ -21,8 +16,8 @@ const limitsMm = fc
 		return { lower, upper: lower + width * PER_MICROMETRE };
 	});
 
-const text = (l: { lower: Length; upper: Length }, units: 'mm' | 'in', places: number) =>
-	`Ø${formatLength(l.lower, units, places)}-${formatLength(l.upper, units, places)}`;
+const text = (l: { lower: number; upper: number }, units: 'mm' | 'in', places: number) =>
+	`Ø${formatLength(toLength(l.lower), units, places)}-${formatLength(toLength(l.upper), units, places)}`;
 
 function fit(hole: string, shaft: string, units: 'mm' | 'in', shaftUnits = units): FitEvaluation {
 	const r = evaluateFit({
@@ -93,7 +88,7 @@ describe('fit properties', () => {
 				const t = c.value * PER_MICROMETRE;
 				const g: GeometricControl = {
 					characteristic: 'position',
-					value: formatLength(t, 'mm', 3),
+					value: formatLength(toLength(t), 'mm', 3),
 					diameterZone: true,
 					appliesTo: 'median',
 					modifier: c.modifier,
@@ -137,7 +132,7 @@ describe('fit properties', () => {
 						controls: [
 							{
 								characteristic: 'position',
-								value: formatLength(tUm * PER_MICROMETRE, 'mm', 3),
+								value: formatLength(toLength(tUm * PER_MICROMETRE), 'mm', 3),
 								diameterZone: true,
 								appliesTo: 'median',
 								modifier: 'mmc',

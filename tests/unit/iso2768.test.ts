@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { parseDecimal } from '../../src/lib/tolerance/decimal';
+import { ZERO, parseDecimal } from '../../src/lib/tolerance/decimal';
 import {
 	ISO_2768_2_STATUS,
 	angularTolerance,
@@ -140,7 +140,7 @@ describe('ISO 2768-1 angles', () => {
 		expect(angularTolerance(mm(leg), cls)).toMatchObject({ ok: true, minutes, published });
 	});
 	test('a leg of no length is not an angle', () => {
-		expect(angularTolerance(0, 'm').ok).toBe(false);
+		expect(angularTolerance(ZERO, 'm').ok).toBe(false);
 	});
 });
 
@@ -216,7 +216,7 @@ describe('ISO 2768-2 (withdrawn 2021, still read)', () => {
 	test('beyond 3000 mm is not covered, and the withdrawal is stated', () => {
 		expect(generalStraightnessFlatness(mm('3000.1'), 'K').ok).toBe(false);
 		expect(generalPerpendicularity(mm('3001'), 'H').ok).toBe(false);
-		expect(generalStraightnessFlatness(0, 'K').ok).toBe(false);
+		expect(generalStraightnessFlatness(ZERO, 'K').ok).toBe(false);
 		expect(generalStraightnessFlatness(mm('10'), 'm' as GeometricClass).ok).toBe(false);
 		expect(ISO_2768_2_STATUS).toMatchObject({ withdrawn: 2021, replacedBy: 'ISO 22081' });
 		const r = generalStraightnessFlatness(mm('50'), 'H');

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { PER_MICROMETRE, parseDecimal } from '../../src/lib/tolerance/decimal';
+import { PER_MICROMETRE, ZERO, parseDecimal } from '../../src/lib/tolerance/decimal';
 import {
 	HOLE_POSITIONS,
 	SHAFT_POSITIONS,
@@ -170,7 +170,7 @@ describe('standard tolerances', () => {
 		expect(standardTolerance(mm('600'), 'IT01').ok).toBe(false);
 		expect(standardTolerance(mm('600'), 'IT0').ok).toBe(false);
 		expect(standardTolerance(mm('3150.001'), 'IT7').ok).toBe(false);
-		expect(standardTolerance(0, 'IT7').ok).toBe(false);
+		expect(standardTolerance(ZERO, 'IT7').ok).toBe(false);
 		expect(standardTolerance(mm('25'), 'IT19').ok).toBe(false);
 		expect(standardTolerance(mm('25'), 7)).toMatchObject({ ok: true, value: um(21) });
 	});

@@ -13,7 +13,7 @@ import type {
 	RulebookTeam
 } from '../../src/lib/tolerance/rulebook';
 import type { GeometricControl } from '../../src/lib/tolerance/feature';
-import { isoLimits, PER_MM } from '../../src/lib/tolerance';
+import { isoLimits, PER_MM, toLength } from '../../src/lib/tolerance';
 
 const iso: RulebookDrawing = {
 	units: 'mm',
@@ -164,7 +164,7 @@ describe('LIM-03 unequal decimal places (ASME)', () => {
 
 describe('LIM-04 ISO 286 code in conflict', () => {
 	it('stated limits that disagree with H7 (25 mm: 0/+0.021, ISO 286-2)', () => {
-		const h7 = isoLimits(25 * PER_MM, 'H7');
+		const h7 = isoLimits(toLength(25 * PER_MM), 'H7');
 		expect(h7.ok && [h7.lower, h7.upper]).toEqual([250_000_000, 250_210_000]);
 		const r = one(run(iso, [feature('Ø25 H7 (25.000/25.025)', true)]), 'LIM-04');
 		expect(r.cause).toBe('disagrees');
@@ -353,7 +353,7 @@ describe('FIT-01 clearance at MMC', () => {
 			'FIT-01'
 		);
 		// g6 at 12 mm: es −0.006 (ISO 286-2, checked by isoLimits below).
-		const g6 = isoLimits(12 * PER_MM, 'g6');
+		const g6 = isoLimits(toLength(12 * PER_MM), 'g6');
 		expect(g6.ok && g6.upper).toBe(119_940_000);
 		expect(r.line).toBe(
 			'MMC hole 12.000 − MMC shaft 11.994 = 0.006, required ≥ 0.010 (stated) for a running fit'
@@ -363,7 +363,7 @@ describe('FIT-01 clearance at MMC', () => {
 
 describe('FIT-02 boundaries', () => {
 	it('a journal whose straightness at MMC exceeds the allowance', () => {
-		const g6 = isoLimits(12 * PER_MM, 'g6');
+		const g6 = isoLimits(toLength(12 * PER_MM), 'g6');
 		expect(g6.ok && [g6.lower, g6.upper]).toEqual([119_830_000, 119_940_000]);
 		const bore = feature('Ø12 H7 Ⓔ', true, { controls: [control('position', '0', 'mmc')] });
 		const journal = feature('Ø12 g6', false, {
@@ -382,8 +382,8 @@ describe('FIT-02 boundaries', () => {
 
 describe('FIT-03 interference fit with clearance', () => {
 	it('edge case: H7/p6 at 3 mm is a transition fit', () => {
-		const h7 = isoLimits(3 * PER_MM, 'H7');
-		const p6 = isoLimits(3 * PER_MM, 'p6');
+		const h7 = isoLimits(toLength(3 * PER_MM), 'H7');
+		const p6 = isoLimits(toLength(3 * PER_MM), 'p6');
 		// ISO 286-2: H7 0/+0.010, p6 +0.006/+0.012 at 3 mm.
 		expect(h7.ok && [h7.lower, h7.upper]).toEqual([30_000_000, 30_100_000]);
 		expect(p6.ok && [p6.lower, p6.upper]).toEqual([30_060_000, 30_120_000]);
@@ -407,8 +407,8 @@ describe('FIT-03 interference fit with clearance', () => {
 
 describe('FIT-04 clearance above the stated maximum', () => {
 	it('H8/f7 at 12 mm against 0.060', () => {
-		const h8 = isoLimits(12 * PER_MM, 'H8');
-		const f7 = isoLimits(12 * PER_MM, 'f7');
+		const h8 = isoLimits(toLength(12 * PER_MM), 'H8');
+		const f7 = isoLimits(toLength(12 * PER_MM), 'f7');
 		// ISO 286-2: H8 0/+0.027, f7 −0.016/−0.034 over 10 up to 18 mm.
 		expect(h8.ok && h8.upper).toBe(120_270_000);
 		expect(f7.ok && f7.lower).toBe(119_660_000);

@@ -2,7 +2,7 @@
  * ANSI B4.1 standard fits read from ./tables/ansi-b4-1.ts: hole and shaft limits for a basic
  * size in inches, with the clearances they give. Exact Lengths throughout.
  */
-import { parseDecimal, type Length } from './decimal';
+import { add, mulDiv, parseDecimal, sub, type Length } from './decimal';
 import { ANSI_B4_1, type AnsiFitClass, type AnsiRow } from './tables/ansi-b4-1';
 
 export type { AnsiFitClass } from './tables/ansi-b4-1';
@@ -52,7 +52,7 @@ export function thousandths(text: string): Length {
 	// Read as inches, then divide by 1000: exact, as printed values have at most three places.
 	const parsed = parseDecimal(text, 'in');
 	if (parsed === null || parsed.value % 1000 !== 0) throw new Error(`bad table value ${text}`);
-	return parsed.value / 1000 + 0;
+	return mulDiv(parsed.value, 1, 1000, 'nearest');
 }
 
 function findRow(rows: readonly AnsiRow[], size: Length): AnsiRow | undefined {
@@ -71,8 +71,8 @@ function member(
 		designation,
 		upperDeviation,
 		lowerDeviation,
-		upper: size + upperDeviation,
-		lower: size + lowerDeviation,
+		upper: add(size, upperDeviation),
+		lower: add(size, lowerDeviation),
 		thousandths: { upper, lower }
 	};
 }
@@ -104,8 +104,8 @@ export function ansiFit(cls: AnsiFitClass, basicSize: Length): AnsiFit | NotCove
 		sizeRange: { over: inches(over), upTo: inches(upTo) },
 		hole,
 		shaft,
-		minClearance: hole.lowerDeviation - shaft.upperDeviation,
-		maxClearance: hole.upperDeviation - shaft.lowerDeviation,
+		minClearance: sub(hole.lowerDeviation, shaft.upperDeviation),
+		maxClearance: sub(hole.upperDeviation, shaft.lowerDeviation),
 		published: { low, high }
 	};
 }

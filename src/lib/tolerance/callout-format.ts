@@ -1,4 +1,4 @@
-import { formatLength, type Units } from './decimal';
+import { abs, formatLength, type Units } from './decimal';
 import type {
 	CalloutSpec,
 	CalloutSymbol,
@@ -41,7 +41,7 @@ export function formatWrittenValue(v: WrittenValue, units: Units, separator: '.'
 		const { whole, numerator, denominator } = v.fraction;
 		return (whole > 0 ? `${whole} ` : '') + `${numerator}/${denominator}`;
 	}
-	return formatLength(v.value < 0 ? -v.value : v.value, units, v.places, {
+	return formatLength(abs(v.value), units, v.places, {
 		leadingZero: units === 'mm',
 		decimalSeparator: separator
 	});

@@ -4,7 +4,7 @@
  * bad text can never make it backtrack. A failure is thrown as a CalloutError; parseCallout
  * (./callout.ts) catches it and never throws.
  */
-import { PER_INCH, scanDecimal, type Units } from './decimal';
+import { PER_INCH, neg, scanDecimal, toLength, type Units } from './decimal';
 import type { WrittenValue } from './callout-types';
 
 export class CalloutError {
@@ -180,7 +180,7 @@ export class Scanner {
 				start
 			);
 		return {
-			value: whole * PER_INCH + numeratorValue / denominator,
+			value: toLength(whole * PER_INCH + numeratorValue / denominator),
 			places: 0,
 			fraction: { whole, numerator, denominator }
 		};
@@ -199,7 +199,7 @@ export class Scanner {
 		const v = this.value();
 		if (c !== PLUS && !negative && v.value !== 0)
 			this.fail('a deviation needs its sign, e.g. +0.021 or -0.020', start);
-		if (negative && v.value !== 0) v.value = -v.value;
+		if (negative && v.value !== 0) v.value = neg(v.value);
 		return v;
 	}
 }

@@ -2,7 +2,7 @@
  * The thread grammar of the callout parser: ISO 261/965 metric threads (M6, M10x1.25-6g LH)
  * and ASME B1.1 unified threads (1/4-20 UNC-2A, #10-32 UNF).
  */
-import { PER_INCH } from './decimal';
+import { PER_INCH, toLength } from './decimal';
 import type { ThreadSpec, WrittenValue } from './callout-types';
 import { MINUS, Scanner, isDigit, isLetter, isSpace } from './callout-scanner';
 
@@ -124,5 +124,5 @@ export function unifiedThread(
 
 /** ASME B1.1 number sizes: major diameter 0.060 + 0.013 n inch. */
 export function numberSizeDiameter(n: number): WrittenValue {
-	return { value: (60 + 13 * n) * (PER_INCH / 1000), places: 3 };
+	return { value: toLength((60 + 13 * n) * (PER_INCH / 1000)), places: 3 };
 }

@@ -2,7 +2,7 @@
  * The callout grammar: sizes, tolerances, ISO classes, modifiers, quantities and depths, read
  * with the scanner of ./callout-scanner.ts (threads in ./callout-thread.ts).
  */
-import type { Length, Units } from './decimal';
+import { ZERO, add, sub, type Length, type Units } from './decimal';
 import type {
 	CalloutSpec,
 	CalloutSymbol,
@@ -632,14 +632,14 @@ export function calloutLimits(
 ): { lower: Length | null; upper: Length | null } | null {
 	const t = spec.tolerance;
 	if (t === null || spec.kind !== 'size') return null;
-	const nominal = spec.nominal?.value ?? 0;
+	const nominal = spec.nominal?.value ?? ZERO;
 	switch (t.type) {
 		case 'limits':
 			return { lower: t.lower.value, upper: t.upper.value };
 		case 'bilateral':
-			return { lower: nominal - t.deviation.value, upper: nominal + t.deviation.value };
+			return { lower: sub(nominal, t.deviation.value), upper: add(nominal, t.deviation.value) };
 		case 'deviations':
-			return { lower: nominal + t.lower.value, upper: nominal + t.upper.value };
+			return { lower: add(nominal, t.lower.value), upper: add(nominal, t.upper.value) };
 		case 'single':
 			return t.limit === 'min' ? { lower: nominal, upper: null } : { lower: null, upper: nominal };
 	}

@@ -10,8 +10,40 @@
 export const UNITS = ['mm', 'in'] as const;
 export type Units = (typeof UNITS)[number];
 
-/** An exact length: an integer count of 0.1 nm (1e-7 mm). 1 in = 254_000_000 exactly. */
-export type Length = number;
+declare const exact: unique symbol;
+
+/**
+ * An exact length: an integer count of 0.1 nm (1e-7 mm). 1 in = 254_000_000 exactly. Branded,
+ * so a plain number (a float read from somewhere) cannot be passed where a Length is expected:
+ * lengths come from parseDecimal and the table readers, and arithmetic on them goes through
+ * add, sub, neg and times below (plain `+` and `-` give a number).
+ */
+export type Length = number & { readonly [exact]: true };
+
+/** An integer count of 0.1 nm as a Length (tables, tests). Throws on anything else. */
+export function toLength(count: number): Length {
+	if (!Number.isSafeInteger(count)) throw new RangeError(`${count} is not an exact length`);
+	return (count + 0) as Length;
+}
+
+export const ZERO = 0 as Length;
+
+export function add(a: Length, b: Length): Length {
+	return (a + b) as Length;
+}
+
+export function sub(a: Length, b: Length): Length {
+	return (a - b) as Length;
+}
+
+export function neg(a: Length): Length {
+	return (0 - a) as Length;
+}
+
+/** a × k for a whole number k. */
+export function times(a: Length, k: number): Length {
+	return (a * k) as Length;
+}
 
 export type Rounding = 'nearest' | 'up' | 'down';
 
@@ -51,7 +83,7 @@ export function parseDecimal(text: string, units: Units): { value: Length; place
 	}
 	const r = scanDecimal(text, i, end, units);
 	if (r === null || r.end !== end) return null;
-	return { value: negative ? -r.value || 0 : r.value, places: r.places };
+	return { value: negative ? ((-r.value || 0) as Length) : r.value, places: r.places };
 }
 
 /**
@@ -113,17 +145,17 @@ export function scanDecimal(
 	}
 	const value = whole * per + fractionValue;
 	if (!Number.isSafeInteger(value)) return null;
-	return { value, places, end: i };
+	return { value: value as Length, places, end: i };
 }
 
 /** Exact for multiples of 0.1 µm (ISO 286 IT01 for sizes to 3 mm is 0.3 µm). */
 export function fromMicrometres(um: number): Length {
-	return Math.round(um * 10) * (PER_MICROMETRE / 10);
+	return (Math.round(um * 10) * (PER_MICROMETRE / 10)) as Length;
 }
 
 /** Inch thousandths (ANSI B4.1 tables), exact for multiples of 0.1 thou. */
 export function fromThousandths(thou: number): Length {
-	return Math.round(thou * 10) * (PER_THOU / 10);
+	return (Math.round(thou * 10) * (PER_THOU / 10)) as Length;
 }
 
 /** Integer division with one rounding: 'up' toward +∞, 'down' toward −∞, 'nearest' half away from zero. */
@@ -166,9 +198,11 @@ export function mulDiv(
 ): Length {
 	const product = value * numerator;
 	if (Number.isSafeInteger(product) && Number.isSafeInteger(denominator) && denominator !== 0) {
-		return divideRounded(product, denominator, rounding);
+		return divideRounded(product, denominator, rounding) as Length;
 	}
-	return Number(divideRoundedBig(BigInt(value) * BigInt(numerator), BigInt(denominator), rounding));
+	return Number(
+		divideRoundedBig(BigInt(value) * BigInt(numerator), BigInt(denominator), rounding)
+	) as Length;
 }
 
 /** value × numerator / denominator for factors beyond a safe integer, with one rounding. */
@@ -178,7 +212,7 @@ export function mulDivBig(
 	denominator: bigint,
 	rounding: Rounding
 ): Length {
-	return Number(divideRoundedBig(BigInt(value) * numerator, denominator, rounding));
+	return Number(divideRoundedBig(BigInt(value) * numerator, denominator, rounding)) as Length;
 }
 
 /** Count of units of the last place: 25.021 mm at 3 places → 25021. */
@@ -197,11 +231,11 @@ export function roundToPlaces(
 ): Length {
 	if (places <= EXACT_PLACES[units]) {
 		const step = perUnit(units) / POW10[places];
-		return divideRounded(value, step, rounding) * step;
+		return (divideRounded(value, step, rounding) * step) as Length;
 	}
 	// Finer than the grid can hold in inch: the grid itself is the rounding.
 	const count = placeCount(value, units, places, rounding);
-	return mulDiv(count, perUnit(units), POW10[places], rounding);
+	return mulDiv(count as Length, perUnit(units), POW10[places], rounding);
 }
 
 export interface FormatOptions {
@@ -259,5 +293,5 @@ export function max(a: Length, b: Length): Length {
 }
 
 export function abs(a: Length): Length {
-	return a < 0 ? -a : a;
+	return a < 0 ? neg(a) : a;
 }

@@ -3,7 +3,7 @@
  * drawings): a floating fastener through clearance holes in both parts, or a fixed fastener held
  * by one part (tapped or press-fit) and passing through the other's clearance hole.
  */
-import { mulDiv, parseDecimal, type Length, type Units } from './decimal';
+import { add, mulDiv, parseDecimal, sub, type Length, type Units } from './decimal';
 import type { FeatureValues } from './feature';
 
 export interface FastenerInput {
@@ -46,7 +46,7 @@ export function readLength(text: string | undefined, units: Units): Length | nul
 }
 
 function floatingBudget(H: Length, F: Length, T: Length | null): FastenerBudget {
-	const available = H - F;
+	const available = sub(H, F);
 	return {
 		formula: 'floating',
 		H,
@@ -71,8 +71,8 @@ function unprojectedBudget(
 	const D = readLength(projection.D, units);
 	if (!P || !D || P < 0 || D <= 0)
 		return { message: 'the projection P and depth D must be sizes above zero' };
-	const available = H - F;
-	const used = T1 !== null && T2 !== undefined ? T1 + T2 : null;
+	const available = sub(H, F);
+	const used = T1 !== null && T2 !== undefined ? add(T1, T2) : null;
 	if (T1 === null || T2 === undefined)
 		return {
 			formula: 'fixed-unprojected',
@@ -85,7 +85,7 @@ function unprojectedBudget(
 			text: 'fixed fastener without a projected zone: needs both position tolerances'
 		};
 	// H = F + T₁ + T₂(1 + 2P/D), rounded up: the hole must be at least this large.
-	const required = F + T1 + mulDiv(T2, D + 2 * P, D, 'up');
+	const required = add(add(F, T1), mulDiv(T2, D + 2 * P, D, 'up'));
 	return {
 		formula: 'fixed-unprojected',
 		H,
@@ -115,8 +115,8 @@ export function fastenerBudget(
 	const T2 = readLength(input?.fixedPosition, units);
 	if (T2 === null) return { message: `'${input?.fixedPosition}' is not a position tolerance` };
 	if (input?.projection) return unprojectedBudget(H, F, T1, T2, input.projection, units);
-	const available = H - F;
-	const used = T1 !== null && T2 !== undefined ? T1 + T2 : null;
+	const available = sub(H, F);
+	const used = T1 !== null && T2 !== undefined ? add(T1, T2) : null;
 	return {
 		formula: 'fixed',
 		H,

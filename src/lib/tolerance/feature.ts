@@ -5,7 +5,17 @@
  */
 import { calloutLimits, parseCallout } from './callout';
 import type { CalloutSpec, Modifier, Tolerance } from './callout-types';
-import { formatLength, parseDecimal, perUnit, type Length, type Units } from './decimal';
+import {
+	ZERO,
+	add,
+	formatLength,
+	neg,
+	parseDecimal,
+	perUnit,
+	sub,
+	type Length,
+	type Units
+} from './decimal';
 import { isoLimits } from './iso286';
 import {
 	STANDARDS,
@@ -405,8 +415,8 @@ function generalLimits(
 		if (!r.ok) return noLimits(`no limits: ISO 2768-${g.linear} ${r.reason}`, written);
 		const dev = r.deviation;
 		return {
-			upper: nominal + dev,
-			lower: nominal - dev,
+			upper: add(nominal, dev),
+			lower: sub(nominal, dev),
 			source: 'general',
 			note: `general tolerance ISO 2768-${g.linear}: ±${r.published} mm`,
 			places: Math.max(written, exactPlaces(dev, units))
@@ -415,8 +425,8 @@ function generalLimits(
 	const r = titleBlockTolerance(written, g, units);
 	if (!r.ok) return noLimits(`no limits: ${r.reason}`, written);
 	return {
-		upper: nominal + r.deviation,
-		lower: nominal - r.deviation,
+		upper: add(nominal, r.deviation),
+		lower: sub(nominal, r.deviation),
 		source: 'general',
 		note: `general tolerance from the title block: ${written} places ±${r.published}`,
 		places: Math.max(written, exactPlaces(r.deviation, units))
@@ -469,37 +479,37 @@ export function controlBoundaries(
 	lmc: Length,
 	t: Length
 ): Boundaries {
-	const T = internal ? lmc - mmc : mmc - lmc;
+	const T = internal ? sub(lmc, mmc) : sub(mmc, lmc);
 	if (modifier === 'mmc') {
 		if (internal) {
-			const vc = mmc - t;
-			const rc = lmc + t + T;
+			const vc = sub(mmc, t);
+			const rc = add(add(lmc, t), T);
 			return { innerBoundary: vc, outerBoundary: rc, virtualCondition: vc, resultantCondition: rc };
 		}
-		const vc = mmc + t;
-		const rc = lmc - t - T;
+		const vc = add(mmc, t);
+		const rc = sub(sub(lmc, t), T);
 		return { innerBoundary: rc, outerBoundary: vc, virtualCondition: vc, resultantCondition: rc };
 	}
 	if (modifier === 'lmc') {
 		if (internal) {
-			const vc = lmc + t;
-			const rc = mmc - t - T;
+			const vc = add(lmc, t);
+			const rc = sub(sub(mmc, t), T);
 			return { innerBoundary: rc, outerBoundary: vc, virtualCondition: vc, resultantCondition: rc };
 		}
-		const vc = lmc - t;
-		const rc = mmc + t + T;
+		const vc = sub(lmc, t);
+		const rc = add(add(mmc, t), T);
 		return { innerBoundary: vc, outerBoundary: rc, virtualCondition: vc, resultantCondition: rc };
 	}
 	return internal
 		? {
-				innerBoundary: mmc - t,
-				outerBoundary: lmc + t,
+				innerBoundary: sub(mmc, t),
+				outerBoundary: add(lmc, t),
 				virtualCondition: null,
 				resultantCondition: null
 			}
 		: {
-				innerBoundary: lmc - t,
-				outerBoundary: mmc + t,
+				innerBoundary: sub(lmc, t),
+				outerBoundary: add(mmc, t),
 				virtualCondition: null,
 				resultantCondition: null
 			};
@@ -513,10 +523,10 @@ export function bonusTolerance(
 	lmc: Length,
 	actual: Length
 ): Length {
-	if (modifier === 'rfs') return 0;
+	if (modifier === 'rfs') return ZERO;
 	const from = modifier === 'mmc' ? mmc : lmc;
-	const departure = internal ? actual - from : from - actual;
-	return (modifier === 'mmc' ? departure : -departure) + 0;
+	const departure = internal ? sub(actual, from) : sub(from, actual);
+	return modifier === 'mmc' ? departure : neg(departure);
 }
 
 function evaluateControl(
@@ -540,7 +550,7 @@ function evaluateControl(
 		boundaries = controlBoundaries(internal, control.modifier, mmc, lmc, t);
 		if (actual?.withinLimits) {
 			const b = bonusTolerance(internal, control.modifier, mmc, lmc, actual.value);
-			bonus = { bonus: b, allowed: t + b };
+			bonus = { bonus: b, allowed: add(t, b) };
 		}
 	}
 	return { control, value: t, boundaries, note, bonus };
@@ -567,7 +577,7 @@ export function featureValues(input: FeatureInput): FeatureValues | FeatureError
 		};
 	const limits = limitsFor(input, spec, internal);
 	const { upper, lower } = limits;
-	const tolerance = upper !== null && lower !== null ? upper - lower : null;
+	const tolerance = upper !== null && lower !== null ? sub(upper, lower) : null;
 	const mmc = internal ? lower : upper;
 	const lmc = internal ? upper : lower;
 	const envelope = envelopeFor(input, spec);

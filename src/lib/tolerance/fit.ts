@@ -4,7 +4,7 @@
  * temperature (PRODUCT.md §4). Exact Lengths; strings in the hole's unit.
  */
 import type { CalloutSpec } from './callout-types';
-import { formatLength, type Length, type Units } from './decimal';
+import { ZERO, formatLength, sub, toLength, type Length, type Units } from './decimal';
 import { fastenerBudget, readLength, type FastenerBudget, type FastenerInput } from './fastener';
 import {
 	evaluateFeature,
@@ -164,7 +164,7 @@ function fastenerMember(
 	const major = e.spec.thread.diameter.value;
 	e.upper = major;
 	e.lower = major;
-	e.tolerance = 0;
+	e.tolerance = ZERO;
 	e.mmc = major;
 	e.lmc = major;
 	e.limitsSource = 'callout';
@@ -175,7 +175,7 @@ function fastenerMember(
 		t.lower = formatValue(major, e.units, e.places);
 		t.mmc = formatValue(major, e.units, e.places);
 		t.lmc = formatValue(major, e.units, e.places);
-		t.tolerance = formatValue(0, e.units, e.places);
+		t.tolerance = formatValue(ZERO, e.units, e.places);
 	}
 	return e;
 }
@@ -320,10 +320,10 @@ function boundaryClearances(hole: FeatureValues, shaft: FeatureValues): AtBounda
 		note: null
 	};
 	if (!out.controlled) return out;
-	if (hb.mmcSide !== null && sb.mmcSide !== null) out.min = hb.mmcSide - sb.mmcSide;
+	if (hb.mmcSide !== null && sb.mmcSide !== null) out.min = sub(hb.mmcSide, sb.mmcSide);
 	else
 		out.note = `nothing bounds the ${hb.mmcSide === null ? 'hole' : 'shaft'}'s mating envelope at MMC (no envelope and no MMC control)`;
-	if (hb.lmcSide !== null && sb.lmcSide !== null) out.max = hb.lmcSide - sb.lmcSide;
+	if (hb.lmcSide !== null && sb.lmcSide !== null) out.max = sub(hb.lmcSide, sb.lmcSide);
 	return out;
 }
 
@@ -376,13 +376,13 @@ function requiredChecks(
 /** The least clearance the boundaries must leave: stated, or what the intent implies. */
 function boundaryFloor(intent: FitIntent | null, reqMin: Length | undefined): Length | null {
 	if (reqMin !== undefined) return reqMin;
-	if (intent === 'running') return 1;
+	if (intent === 'running') return toLength(1);
 	if (
 		intent === 'locational-clearance' ||
 		intent === 'floating-fastener' ||
 		intent === 'fixed-fastener'
 	)
-		return 0;
+		return ZERO;
 	return null;
 }
 
@@ -423,8 +423,8 @@ function temperatureResult(
 		};
 	if (hole.lower === null || hole.upper === null || shaft.lower === null || shaft.upper === null)
 		return null;
-	const minT = expand(hole.lower, t.hole, t.deltaT) - expand(shaft.upper, t.shaft, t.deltaT);
-	const maxT = expand(hole.upper, t.hole, t.deltaT) - expand(shaft.lower, t.shaft, t.deltaT);
+	const minT = sub(expand(hole.lower, t.hole, t.deltaT), expand(shaft.upper, t.shaft, t.deltaT));
+	const maxT = sub(expand(hole.upper, t.hole, t.deltaT), expand(shaft.lower, t.shaft, t.deltaT));
 	return {
 		operating: t.operating,
 		minClearance: minT,
@@ -440,9 +440,9 @@ function fitWith(input: FitInput, text: boolean): FitValues | FitError {
 	const units = hole.units;
 	const intent = input.intent ?? null;
 	const minClearance =
-		hole.lower !== null && shaft.upper !== null ? hole.lower - shaft.upper : null;
+		hole.lower !== null && shaft.upper !== null ? sub(hole.lower, shaft.upper) : null;
 	const maxClearance =
-		hole.upper !== null && shaft.lower !== null ? hole.upper - shaft.lower : null;
+		hole.upper !== null && shaft.lower !== null ? sub(hole.upper, shaft.lower) : null;
 	const classification =
 		minClearance !== null && maxClearance !== null ? classifyFit(minClearance, maxClearance) : null;
 	const atBoundary = boundaryClearances(hole, shaft);

@@ -3,7 +3,19 @@
  * an exact Length; whatever the standard leaves blank comes back as "not defined" with the
  * reason, never extrapolated.
  */
-import { PER_MICROMETRE, PER_MM, formatLength, parseDecimal, type Length } from './decimal';
+import {
+	PER_MICROMETRE,
+	PER_MM,
+	ZERO,
+	add,
+	formatLength,
+	mulDiv,
+	neg,
+	parseDecimal,
+	sub,
+	toLength,
+	type Length
+} from './decimal';
 import {
 	DELTA,
 	GRADES,
@@ -86,7 +98,7 @@ export const HOLE_POSITIONS: readonly string[] = SHAFT_LETTERS.map((l) => l.toUp
 function micrometres(text: string): Length {
 	const parsed = parseDecimal(text, 'mm');
 	if (parsed === null) throw new Error(`bad table value ${text}`);
-	return parsed.value / 1000;
+	return mulDiv(parsed.value, 1, 1000, 'nearest');
 }
 
 function mm(size: Length): string {
@@ -103,7 +115,7 @@ function outOfRange(size: Length): NotDefined | null {
 	return null;
 }
 
-const MAIN_BOUNDS: readonly Length[] = MAIN_RANGES_MM.map((upTo) => upTo * PER_MM);
+const MAIN_BOUNDS: readonly Length[] = MAIN_RANGES_MM.map((upTo) => toLength(upTo * PER_MM));
 
 function mainRangeIndex(size: Length): number {
 	for (let i = 0; i < MAIN_BOUNDS.length; i++) if (size <= MAIN_BOUNDS[i]) return i;
@@ -141,8 +153,8 @@ function columnOf(steps: Steps): Column {
 	let column = columns.get(steps);
 	if (column === undefined) {
 		column = {
-			bounds: steps.map(([upTo]) => upTo * PER_MM),
-			values: steps.map(([, value]) => (value === null ? null : value * PER_MICROMETRE))
+			bounds: steps.map(([upTo]) => toLength(upTo * PER_MM)),
+			values: steps.map(([, value]) => (value === null ? null : toLength(value * PER_MICROMETRE)))
 		};
 		columns.set(steps, column);
 	}
@@ -276,7 +288,7 @@ function shaftFundamental(letter: string, size: Length, grade: Grade, shown = le
 		return { value: v };
 	}
 	if (letter === 'k') {
-		if (size > SIZE_500 || n < 4 || n > 7) return { value: 0 };
+		if (size > SIZE_500 || n < 4 || n > 7) return { value: ZERO };
 		return { value: stepAt(K_SHAFT_IT4_TO_IT7, size) as Length };
 	}
 	const v = stepAt(SHAFT_DEVIATIONS[letter], size);
@@ -303,9 +315,9 @@ function firstDefined(letter: string): number {
 function halfTolerance(it: Length, grade: Grade): Length {
 	const n = gradeNumber(grade);
 	if (n >= 7 && n <= 11 && it % (2 * PER_MICROMETRE) === PER_MICROMETRE) {
-		return (it - PER_MICROMETRE) / 2;
+		return toLength((it - PER_MICROMETRE) / 2);
 	}
-	return it / 2;
+	return toLength(it / 2);
 }
 
 function holeFundamental(letter: string, size: Length, grade: Grade): Deviation {
@@ -313,7 +325,7 @@ function holeFundamental(letter: string, size: Length, grade: Grade): Deviation 
 	const shaft = letter.toLowerCase();
 	if (A_TO_H.includes(shaft)) {
 		const es = shaftFundamental(shaft, size, grade, letter);
-		return 'value' in es ? { value: 0 - es.value + 0 } : es;
+		return 'value' in es ? { value: neg(es.value) } : es;
 	}
 	if (letter === 'J') {
 		const row = n === 6 ? '6' : n === 7 ? '7' : n === 8 ? '8' : null;
@@ -326,26 +338,26 @@ function holeFundamental(letter: string, size: Length, grade: Grade): Deviation 
 		const ei =
 			letter === 'K'
 				? size > SIZE_500
-					? 0
+					? ZERO
 					: (stepAt(K_SHAFT_IT4_TO_IT7, size) as Length)
 				: (stepAt(SHAFT_DEVIATIONS[shaft], size) as Length);
 		// Above 500 mm one value serves every grade and no Δ is added.
-		if (size > SIZE_500) return { value: -ei };
+		if (size > SIZE_500) return { value: neg(ei) };
 		if (n <= 8) {
 			if (letter === 'M' && n === 6 && size > 250 * PER_MM && size <= 315 * PER_MM) {
-				return { value: M6_250_TO_315_ES * PER_MICROMETRE };
+				return { value: toLength(M6_250_TO_315_ES * PER_MICROMETRE) };
 			}
 			const d = delta(size, grade);
 			if (d === null)
 				return notDefined(
 					`Δ is tabulated for IT3 to IT8 only, so ${letter}${grade.slice(2)} has no ES`
 				);
-			return { value: -ei + d };
+			return { value: add(neg(ei), d) };
 		}
-		if (letter === 'K') return { value: 0 };
-		if (letter === 'M') return { value: -ei };
+		if (letter === 'K') return { value: ZERO };
+		if (letter === 'M') return { value: neg(ei) };
 		if (size <= PER_MM) return notDefined('N above IT8 is not used for sizes up to 1 mm');
-		return { value: size <= 3 * PER_MM ? -4 * PER_MICROMETRE : 0 };
+		return { value: size <= 3 * PER_MM ? toLength(-4 * PER_MICROMETRE) : ZERO };
 	}
 	// P to ZC: ES = −ei of the shaft, plus Δ up to IT7 (sizes up to 500 mm).
 	const ei = shaftFundamental(shaft, size, grade, letter);
@@ -356,9 +368,9 @@ function holeFundamental(letter: string, size: Length, grade: Grade): Deviation 
 			return notDefined(
 				`Δ is tabulated for IT3 to IT8 only, so ${letter}${grade.slice(2)} has no ES`
 			);
-		return { value: -ei.value + d };
+		return { value: add(neg(ei.value), d) };
 	}
-	return { value: -ei.value };
+	return { value: neg(ei.value) };
 }
 
 /** Limits of an ISO 286 tolerance class ('H7', 'g6', 'js5', 'ZC11') at a nominal size. */
@@ -378,7 +390,7 @@ export function isoLimits(size: Length, code: string): IsoLimitsResult {
 	if (letter === 'js' || letter === 'JS') {
 		const half = halfTolerance(it, grade);
 		upperDeviation = half;
-		lowerDeviation = -half;
+		lowerDeviation = neg(half);
 		fundamentalDeviation = internal ? lowerDeviation : upperDeviation;
 	} else {
 		const dev = internal
@@ -386,14 +398,14 @@ export function isoLimits(size: Length, code: string): IsoLimitsResult {
 			: shaftFundamental(letter, size, grade);
 		if (!('value' in dev)) return dev;
 		// + 0 turns a −0 from a negated zero into 0.
-		fundamentalDeviation = dev.value + 0;
+		fundamentalDeviation = add(dev.value, ZERO);
 		// Holes A–H and shafts j–zc take the lower deviation as fundamental.
 		if (internal === parsed.aToH) {
 			lowerDeviation = fundamentalDeviation;
-			upperDeviation = fundamentalDeviation + it;
+			upperDeviation = add(fundamentalDeviation, it);
 		} else {
 			upperDeviation = fundamentalDeviation;
-			lowerDeviation = fundamentalDeviation - it;
+			lowerDeviation = sub(fundamentalDeviation, it);
 		}
 	}
 	return {
@@ -406,8 +418,8 @@ export function isoLimits(size: Length, code: string): IsoLimitsResult {
 		fundamentalDeviation,
 		upperDeviation,
 		lowerDeviation,
-		upper: size + upperDeviation,
-		lower: size + lowerDeviation
+		upper: add(size, upperDeviation),
+		lower: add(size, lowerDeviation)
 	};
 }
 
@@ -444,8 +456,8 @@ export function isoFit(size: Length, designation: string): IsoFit | NotDefined {
 	if (!shaft.ok) return shaft;
 	if (shaft.internal)
 		return { ok: false, reason: `not defined: '${shaftCode}' is a hole class, not a shaft` };
-	const minClearance = hole.lower - shaft.upper;
-	const maxClearance = hole.upper - shaft.lower;
+	const minClearance = sub(hole.lower, shaft.upper);
+	const maxClearance = sub(hole.upper, shaft.lower);
 	return {
 		ok: true,
 		hole,

@@ -2,7 +2,7 @@
  * FIT: fits (PRODUCT.md §5). FIT-01…05 are judged on one fit, from ../fit.ts's evaluation of
  * the pair; FIT-06 on each feature that is a fit member.
  */
-import { parseDecimal, type Length, type Units } from '../decimal';
+import { ZERO, parseDecimal, sub, type Length, type Units } from '../decimal';
 import type { FeatureValues } from '../feature';
 import { fitValues, type FitIntent, type FitMemberInput, type FitValues } from '../fit';
 import {
@@ -42,9 +42,9 @@ function requiredMinimum(
 		const v = parseDecimal(stated, units);
 		if (v !== null) return { value: v.value, strict: false, text: `≥ ${stated} (stated)` };
 	}
-	if (fit.intent === 'running') return { value: 0, strict: true, text: '> 0' };
+	if (fit.intent === 'running') return { value: ZERO, strict: true, text: '> 0' };
 	if (fit.intent === 'locational-clearance' || fit.intent === 'floating-fastener')
-		return { value: 0, strict: false, text: '≥ 0' };
+		return { value: ZERO, strict: false, text: '≥ 0' };
 	return null;
 }
 
@@ -156,7 +156,7 @@ function boundaryRule(w: FitWords, out: Finding[]): void {
 	const sb = mmcBoundary(r.shaft);
 	const controlled = boundingControls(r.hole).length > 0 || boundingControls(r.shaft).length > 0;
 	if (!controlled || !hb || !sb) return;
-	const c = hb.at - sb.at;
+	const c = sub(hb.at, sb.at);
 	if (!fails(c, req)) return;
 	const holeAt = f.show(hb.at);
 	const shaftAt = f.show(sb.at);

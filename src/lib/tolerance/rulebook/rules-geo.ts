@@ -3,6 +3,7 @@
  * nothing to refer to, zero tolerances without Ⓜ, and datum letters.
  */
 import type { Characteristic, GeometricControl } from '../feature';
+import { ZERO } from '../decimal';
 import { isSurfaceForm } from '../feature';
 import { characteristicWord, show, value, type FeatureContext } from './context';
 import type { Finding } from './emit';
@@ -92,7 +93,7 @@ function zeroRule(ctx: FeatureContext, i: number, words: ControlWords, out: Find
 		rule: 'GEO-03',
 		cause: words.cause(i),
 		message: `A ${name} tolerance of zero regardless of feature size allows no deviation.`,
-		values: [value('tolerance', 0, t), value('modifier', null, 'none (RFS)')],
+		values: [value('tolerance', ZERO, t), value('modifier', null, 'none (RFS)')],
 		line: `${name} ${t} RFS: zero zone`,
 		fix: 'Add Ⓜ for zero tolerancing at MMC, or give a value above zero.'
 	});

@@ -3,7 +3,7 @@
  */
 import type { CalloutSpec, Tolerance, ToleranceClass } from '../callout-types';
 import { isAsme } from '../drawing-context';
-import { parseDecimal, roundToPlaces, type Length } from '../decimal';
+import { add, parseDecimal, roundToPlaces, sub, type Length } from '../decimal';
 import { isoLimits, standardTolerance } from '../iso286';
 import { LengthFormat, show, signed, value, type FeatureContext } from './context';
 import type { Finding } from './emit';
@@ -59,15 +59,15 @@ function statedLimits(tolerance: Tolerance | null, nominal: Length) {
 			};
 		case 'deviations':
 			return {
-				lower: nominal + tolerance.lower.value,
-				upper: nominal + tolerance.upper.value,
+				lower: add(nominal, tolerance.lower.value),
+				upper: add(nominal, tolerance.upper.value),
 				lowerPlaces: tolerance.lower.places,
 				upperPlaces: tolerance.upper.places
 			};
 		case 'bilateral':
 			return {
-				lower: nominal - tolerance.deviation.value,
-				upper: nominal + tolerance.deviation.value,
+				lower: sub(nominal, tolerance.deviation.value),
+				upper: add(nominal, tolerance.deviation.value),
 				lowerPlaces: tolerance.deviation.places,
 				upperPlaces: tolerance.deviation.places
 			};
