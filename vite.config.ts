@@ -8,7 +8,13 @@ export default defineConfig({
 		projects: [
 			{
 				extends: './vite.config.ts',
-				test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' }
+				// Property tests run tens of thousands of cases; a shared, busy machine needs more than 5 s.
+				test: {
+					name: 'unit',
+					include: ['tests/unit/**/*.test.ts'],
+					environment: 'node',
+					testTimeout: 60_000
+				}
 			},
 			{
 				extends: './vite.config.ts',

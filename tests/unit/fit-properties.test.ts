@@ -142,7 +142,9 @@ describe('fit properties', () => {
 					},
 					shaft: { callout: text(shaft, 'mm', 3) },
 					units: 'mm',
-					standard: 'asme-y14.5-2018'
+					standard: 'asme-y14.5-2018',
+					// Both located in one datum frame, so the hole's position enters the boundary.
+					sharedDatumFrame: true
 				});
 				if (!r.ok) throw new Error(r.message);
 				expect(r.minClearanceAtBoundary!).toBeLessThanOrEqual(r.minClearance!);

@@ -145,7 +145,8 @@ describe('boundaries', () => {
 			shaft: { callout: 'Ø9.8-10.0' },
 			units: 'mm',
 			standard: 'asme-y14.5-2018',
-			intent: 'locational-clearance'
+			intent: 'locational-clearance',
+			sharedDatumFrame: true
 		});
 		expect(r.minClearanceAtBoundary).toBe(mm('0.1'));
 		// hole outer boundary RC = 10.4 + 0.1 + 0.2 = 10.7; shaft inner boundary = LMC 9.8
@@ -312,5 +313,185 @@ describe('fit diagram', () => {
 			(m) => Number(m[1])
 		);
 		expect(heights[0] / heights[1]).toBeCloseTo(21 / 13, 1);
+	});
+});
+
+describe('fits and fasteners as a checker judges them', () => {
+	const bolt = (hole: string, t: string, modifier: GeometricControl['modifier']) =>
+		ok({
+			hole: { callout: hole, controls: [position(t, modifier)] },
+			fastener: { callout: 'M6' },
+			units: 'mm',
+			standard: 'iso-8015',
+			intent: 'floating-fastener'
+		});
+
+	test('floating fastener: the modifier decides the hole boundary (ASME Y14.5 Appendix B; LMC recalled)', () => {
+		// Ø6.6 +0.2/0 for M6: H = 6.6, F = 6, H − F = 0.6.
+		// At MMC the boundary is the VC MMC − t: 0.5 ≤ 0.6 passes.
+		const atMmc = bolt('Ø6.6 +0.2/0', '0.5', 'mmc');
+		expect(atMmc.fastener).toMatchObject({ used: mm('0.5'), ok: true, modifier: 'mmc' });
+		expect(atMmc.fastener?.boundary).toContain('virtual condition MMC − t');
+		// RFS: no bonus, the inner boundary is still MMC − t, so the same check.
+		const rfs = bolt('Ø6.6 +0.2/0', '0.5', 'rfs');
+		expect(rfs.fastener).toMatchObject({ used: mm('0.5'), ok: true, modifier: 'rfs' });
+		expect(rfs.fastener?.boundary).toContain('inner boundary MMC − t');
+		// At LMC the inner boundary is MMC − t − T: t + T = 0.5 + 0.2 = 0.7 > 0.6 fails.
+		const atLmc = bolt('Ø6.6 +0.2/0', '0.5', 'lmc');
+		expect(atLmc.fastener).toMatchObject({ used: mm('0.7'), ok: false, modifier: 'lmc' });
+		expect(atLmc.fastener?.boundary).toContain('MMC − t − T');
+		expect(atLmc.text.fastener?.used).toBe('0.7');
+		expect(atLmc.verdict).toBe('fail');
+	});
+
+	test('fixed fastener through a hole smaller than it fails, whatever else is given (common practice)', () => {
+		// Ø5.5 ±0.1 for M6: H = 5.4 < F = 6, H − F = −0.6.
+		const tooSmall = (fixedPosition?: string) =>
+			ok({
+				hole: { callout: 'Ø5.5 ±0.1' },
+				fastener: { callout: 'M6', fixedPosition },
+				units: 'mm',
+				standard: 'iso-8015',
+				intent: 'fixed-fastener'
+			});
+		for (const r of [tooSmall(), tooSmall('0.1')]) {
+			expect(r.fastener).toMatchObject({ holeTooSmall: true, ok: false, available: mm('-0.6') });
+			expect(r.verdict).toBe('fail');
+			const check = r.checks.find((c) => c.what.startsWith('fastener:'))!;
+			expect(check.ok).toBe(false);
+			expect(check.text).toBe('H 5.4 < F 6.0: H − F = -0.6');
+		}
+	});
+
+	test('fixed fastener: T₂ from the holding hole named as a feature (ASME Y14.5 Appendix B)', () => {
+		const r = ok({
+			hole: { callout: 'Ø6.6 +0.2/0', controls: [position('0.3', 'mmc')] },
+			fastener: { callout: 'M6' },
+			fixedHole: { callout: 'M6-6H', controls: [position('0.2', 'rfs')] },
+			units: 'mm',
+			standard: 'iso-8015',
+			intent: 'fixed-fastener'
+		});
+		// T₁ + T₂ = 0.3 + 0.2 = 0.5 ≤ H − F = 0.6
+		expect(r.fastener).toMatchObject({ formula: 'fixed', used: mm('0.5'), ok: true });
+	});
+
+	test('a bought fastener is bounded by its largest size: no false alarm (common practice)', () => {
+		// Ø6.6 +0.2/0 with position Ø0.4 Ⓜ, M6: hole VC 6.2, fastener 6.0 → 0.2 at the boundary.
+		const r = ok({
+			hole: { callout: 'Ø6.6 +0.2/0', controls: [position('0.4', 'mmc')] },
+			fastener: { callout: 'M6' },
+			units: 'mm',
+			standard: 'iso-8015',
+			intent: 'floating-fastener',
+			sharedDatumFrame: true
+		});
+		expect(r.boundaryNote).toBeNull();
+		expect(r.minClearanceAtBoundary).toBe(mm('0.2'));
+		expect(r.shaftBoundary.what).toBe('largest size');
+		expect(r.verdict).toBe('pass');
+	});
+
+	test('only form controls of the derived median enter a pin-in-hole boundary unless both share a datum frame (common practice)', () => {
+		const perpendicularity: GeometricControl = {
+			characteristic: 'perpendicularity',
+			value: '0.02',
+			diameterZone: true,
+			appliesTo: 'median',
+			modifier: 'mmc',
+			datums: ['A']
+		};
+		const input = (sharedDatumFrame: boolean): FitInput => ({
+			hole: { callout: 'Ø12 H7 Ⓔ', controls: [perpendicularity] },
+			shaft: { callout: 'Ø12 g6 Ⓔ' },
+			units: 'mm',
+			standard: 'iso-8015',
+			intent: 'running',
+			sharedDatumFrame
+		});
+		// Alone: the bore is bounded by its envelope at 12.000, the journal by 11.994 (g6,
+		// ISO 286-2:2010 table 2 / 5): clearance 0.006 at the boundaries, nothing counted.
+		const alone = ok(input(false));
+		expect(alone.verdict).toBe('pass');
+		expect(alone.text.countedControls).toEqual([]);
+		expect(alone.minClearanceAtBoundary).toBeNull();
+		// In one datum frame the perpendicularity's VC 12.000 − 0.020 = 11.980 counts: −0.014.
+		const shared = ok(input(true));
+		expect(shared.minClearanceAtBoundary).toBe(mm('-0.014'));
+		expect(shared.text.countedControls).toEqual(['hole: perpendicularity Ø0.02 Ⓜ']);
+		expect(shared.verdict).toBe('fail');
+		// Straightness of the derived median line counts either way.
+		const straight = ok({
+			...input(false),
+			hole: { callout: 'Ø12 H7 Ⓔ' },
+			shaft: {
+				callout: 'Ø12 g6',
+				controls: [{ ...perpendicularity, characteristic: 'straightness', datums: [] }]
+			}
+		});
+		expect(straight.text.countedControls).toEqual(['shaft: straightness Ø0.02 Ⓜ']);
+		expect(straight.minClearanceAtBoundary).toBe(mm('-0.014'));
+	});
+
+	test('temperature enters the verdict: Ø18 H7/p6 aluminium on bronze at 80 °C loses its interference', () => {
+		// H7 18.000/18.018, p6 18.018/18.029 (ISO 286-2:2010 tables); α aluminium 23.6, bronze
+		// 17.5 × 10⁻⁶/K (recalled handbook values). By hand at Δθ = 60 K, each size rounded to the
+		// 0.1 nm grid: hole 18.000 → 18.025488, 18.018 → 18.0435135 (18.043513488); shaft
+		// 18.018 → 18.0369189, 18.029 → 18.0479305 (18.04793045, half away from zero).
+		const r = ok({
+			hole: { callout: 'Ø18 H7' },
+			shaft: { callout: 'Ø18 p6' },
+			units: 'mm',
+			standard: 'iso-8015',
+			intent: 'interference',
+			temperature: { operating: '80', holeCoefficient: '23.6', shaftCoefficient: '17.5' }
+		});
+		expect(r.maxClearance).toBe(0); // interference at 20 °C
+		expect(r.temperature?.maxClearance).toBe(mm('0.0065946'));
+		expect(r.temperature?.minClearance).toBe(mm('-0.0224425'));
+		expect(r.temperature?.classification).toBe('transition');
+		// Shown to the callouts' places plus one, not to seven.
+		expect(r.text.temperature).toEqual({ minClearance: '-0.0224', maxClearance: '0.0066' });
+		const atT = r.checks.find((c) => c.what.startsWith('at 80 °C'))!;
+		expect(atT).toEqual({
+			what: 'at 80 °C: interference fit: maximum clearance not above zero',
+			ok: false,
+			text: 'maximum clearance 0.0066'
+		});
+		expect(r.verdict).toBe('fail');
+	});
+
+	test('members on different drawings: each under its own, the fit in the hole unit, converted inward', () => {
+		// A bore on an ISO drawing (mm) and a pin on an ASME inch drawing: .2490-.2495 in is
+		// 6.3246-6.3373 mm exactly (1 in = 25.4 mm), so 5 mm places hold it (common practice).
+		const r = ok({
+			hole: {
+				callout: 'Ø6.4 +0.1/0',
+				drawing: { units: 'mm', standard: 'iso-8015', generalTolerance: null }
+			},
+			shaft: {
+				callout: 'Ø.2490-.2495',
+				drawing: { units: 'in', standard: 'asme-y14.5-2018', generalTolerance: null }
+			},
+			units: 'mm',
+			standard: 'unstated'
+		});
+		expect(r.units).toBe('mm');
+		expect(r.shaft.units).toBe('in');
+		// Rule #1 on the ASME member; independency on the ISO one.
+		expect(r.shaft.envelope.applies).toBe(true);
+		expect(r.hole.envelope.applies).toBe(false);
+		expect(r.shaftLimits).toMatchObject({ converted: true, upper: mm('6.3373') });
+		expect(r.minClearance).toBe(mm('0.0627'));
+		// mm to inch rounds inward on the inch grid: never wider than the drawn zone.
+		const back = ok({
+			hole: { callout: 'Ø.2520-.2530', drawing: { units: 'in', standard: 'asme-y14.5-2018' } },
+			shaft: { callout: 'Ø6.3 -0.01/-0.03', drawing: { units: 'mm', standard: 'iso-8015' } },
+			units: 'in',
+			standard: 'asme-y14.5-2018'
+		});
+		expect(back.shaftLimits.upper!).toBeLessThanOrEqual(mm('6.29'));
+		expect(back.shaftLimits.lower!).toBeGreaterThanOrEqual(mm('6.27'));
+		expect(back.shaftLimits.upper! - back.shaftLimits.lower!).toBeGreaterThan(0);
 	});
 });

@@ -470,6 +470,117 @@ describe('FIT-06 fit member not located', () => {
 	});
 });
 
+describe('fits and fasteners as a checker judges them', () => {
+	it('FIT-05 at LMC: t + T = 0.5 + 0.2 = 0.7 > H − F = 0.6 (Ø6.6 +0.2/0, M6; recalled)', () => {
+		const holes = feature('4X Ø6.6 +0.2/0', true, {
+			controls: [control('position', '0.5', 'lmc', { datums: ['A', 'B'] })]
+		});
+		const bolts: RulebookFit = {
+			id: 'bolts',
+			holeFeatureId: holes.id,
+			fastener: { callout: 'M6', label: 'bolt' },
+			intent: 'floating-fastener'
+		};
+		const r = one(run(iso, [holes], [bolts]), 'FIT-05');
+		expect(r.line).toBe('t + T 0.7 > H 6.6 − F 6.0 = 0.6 (floating fastener: t + T = H − F)');
+		expect(valueOf(r, 'boundary')).toContain('MMC − t − T');
+		// The same at MMC passes: the VC is the boundary and 0.5 ≤ 0.6.
+		const atMmc = feature('4X Ø6.6 +0.2/0', true, {
+			controls: [control('position', '0.5', 'mmc', { datums: ['A', 'B'] })]
+		});
+		const pass = run(iso, [atMmc], [{ ...bolts, holeFeatureId: atMmc.id }]);
+		expect(pass.filter((x) => x.rule === 'FIT-05')).toEqual([]);
+	});
+
+	it('FIT-05 critical when a fixed fastener is larger than its clearance hole (common practice)', () => {
+		const hole = feature('Ø5.5 ±0.1', true, {
+			controls: [control('position', '0.1', 'mmc', { datums: ['A', 'B'] })]
+		});
+		const tapped = feature('M6-6H', true, {
+			kind: 'thread',
+			controls: [control('position', '0.2', 'rfs', { datums: ['A', 'B'] })]
+		});
+		const stud: RulebookFit = {
+			id: 'stud',
+			holeFeatureId: hole.id,
+			fastener: { callout: 'M6', label: 'stud' },
+			fixedHoleFeatureId: tapped.id,
+			intent: 'fixed-fastener'
+		};
+		const r = one(run(iso, [hole, tapped], [stud]), 'FIT-05');
+		expect([r.cause, r.severity]).toEqual(['hole-too-small', 'critical']);
+		expect(r.line).toBe('H 5.4 − F 6.0 = −0.6: the hole at MMC is smaller than the fastener');
+	});
+
+	it('FIT-05 fixed: T₂ read from the holding hole named by fixedHoleFeatureId', () => {
+		const holes = feature('4X Ø6.6', true, {
+			controls: [control('position', '0.2', 'mmc', { datums: ['A', 'B'] })]
+		});
+		const tapped = feature('4X M6-6H', true, {
+			kind: 'thread',
+			controls: [control('position', '0.3', 'rfs', { datums: ['A', 'B'] })]
+		});
+		const studs: RulebookFit = {
+			id: 'studs',
+			holeFeatureId: holes.id,
+			fastener: { callout: 'M6', label: 'stud' },
+			fixedHoleFeatureId: tapped.id,
+			intent: 'fixed-fastener'
+		};
+		const r = one(run(iso, [holes, tapped], [studs]), 'FIT-05');
+		expect(r.line).toBe('T₁ + T₂ = 0.5 > H 6.4 − F 6.0 = 0.4 (fixed fastener: T₁ + T₂ = H − F)');
+		// An edit of the holding hole alone re-judges the fit.
+		const only = evaluate({
+			drawing: iso,
+			features: [holes, tapped],
+			fits: [studs],
+			only: { featureIds: [tapped.id] }
+		});
+		expect(only.filter((x) => x.rule === 'FIT-05')).toHaveLength(1);
+	});
+
+	it('FIT-02: perpendicularity to A counts only in a shared datum frame (common practice)', () => {
+		const perp = control('perpendicularity', '0.02', 'mmc', { datums: ['A'] });
+		const bore = feature('Ø12 H7 Ⓔ', true, { controls: [perp] });
+		const journal = feature('Ø12 g6 Ⓔ', false);
+		// Apart: the bore's envelope 12.000 against the journal's 11.994, no false alarm.
+		expect(
+			run(iso, [bore, journal], [fit(bore, journal)]).filter((r) => r.rule === 'FIT-02')
+		).toEqual([]);
+		// Both located from A and B: VC 11.980 − 11.994 = −0.014.
+		const shared = one(
+			run(iso, [bore, journal], [fit(bore, journal, { sharedDatumFrame: true })]),
+			'FIT-02'
+		);
+		expect(shared.line).toBe(
+			'VC hole 11.980 − MMC (envelope) shaft 11.994 = −0.014, required > 0 for a running fit'
+		);
+	});
+
+	it('members on other drawings are judged under their own: ENV-02 on ISO, Rule #1 on ASME', () => {
+		// The run is an ISO drawing's; the pin sits on an ASME inch drawing.
+		const bore = feature('Ø6.4 +0.1/0', true);
+		const pin = feature('Ø.2490-.2495', false, { drawing: asme, kind: 'pin' });
+		const results = run(iso, [bore, pin], [fit(bore, pin)]);
+		expect(results.filter((r) => r.rule === 'ENV-02').map((r) => r.featureId)).toEqual([bore.id]);
+		expect(results.filter((r) => r.featureId === pin.id && r.rule.startsWith('ENV'))).toEqual([]);
+		// The fit is judged in the bore's unit: no FIT finding (min clearance 0.0627 mm).
+		expect(results.filter((r) => r.subject === 'fit')).toEqual([]);
+	});
+
+	it('FIT-06 does not ask a bought-out member for a location control', () => {
+		const hole = feature('Ø12 H7 Ⓔ', true, {
+			controls: [control('position', '0.02', 'mmc', { datums: ['A', 'B'] })]
+		});
+		const pin = feature('Ø12 m6 Ⓔ', false, { kind: 'pin', boughtOut: true });
+		const results = run(iso, [hole, pin], [fit(hole, pin, { intent: 'transition' })]);
+		expect(results.filter((r) => r.rule === 'FIT-06')).toEqual([]);
+		const drawn = feature('Ø12 m6 Ⓔ', false, { kind: 'pin' });
+		const again = run(iso, [hole, drawn], [fit(hole, drawn, { intent: 'transition' })]);
+		expect(again.filter((r) => r.rule === 'FIT-06').map((r) => r.featureId)).toEqual([drawn.id]);
+	});
+});
+
 describe('DOC rules', () => {
 	it('DOC-01: a bare size on a drawing with no general tolerance', () => {
 		const r = one(run({ ...iso, generalTolerance: null }, [feature('8', true)]), 'DOC-01');

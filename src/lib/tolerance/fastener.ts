@@ -1,10 +1,15 @@
 /*
  * Fastener position budgets (ASME Y14.5 Appendix B formulas; the same arithmetic serves ISO
- * drawings): a floating fastener through clearance holes in both parts, or a fixed fastener held
- * by one part (tapped or press-fit) and passing through the other's clearance hole.
+ * drawings). Floating: a fastener through clearance holes in both parts, T = H − F for each.
+ * Fixed: a fastener held by one part (tapped or press-fit hole, tolerance T₂) and passing
+ * through the other's clearance hole (T₁): T₁ + T₂ = H − F with the holding part's zone
+ * projected, H = F + T₁ + T₂(1 + 2P/D) without. The formulas are those of a position
+ * tolerance at MMC, where the hole's inner boundary is its virtual condition MMC − t. At RFS the
+ * inner boundary is the same MMC − t (no bonus); at LMC it is MMC − t − T (T the hole's size
+ * tolerance), so the clearance hole's share becomes t + T.
  */
 import { add, mulDiv, parseDecimal, sub, type Length, type Units } from './decimal';
-import type { FeatureValues } from './feature';
+import type { FeatureValues, MaterialModifier } from './feature';
 
 export interface FastenerInput {
 	callout: string;
@@ -24,13 +29,21 @@ export interface FastenerBudget {
 	/** H: the clearance hole at MMC. F: the fastener at MMC. */
 	H: Length;
 	F: Length;
-	/** H − F: the position tolerance the pair may share. */
+	/** H − F: the position tolerance the pair may share. Below zero the fastener cannot pass. */
 	available: Length;
-	/** T (floating), T₁ + T₂ (fixed), or the hole size the out-of-squareness formula requires. */
+	/** The clearance hole's share (t, or t + T at LMC), plus T₂ for a fixed fastener. */
 	used: Length | null;
+	/** The hole size the out-of-squareness formula requires (fixed, not projected). */
 	required: Length | null;
 	ok: boolean | null;
+	/** The formula, in words. */
 	text: string;
+	/** The material condition of the clearance hole's position tolerance; null without one. */
+	modifier: MaterialModifier | null;
+	/** Which boundary of the clearance hole the check used, in words. */
+	boundary: string;
+	/** The fastener does not pass the hole at MMC (H < F), whatever the position tolerances. */
+	holeTooSmall: boolean;
 }
 
 /** What went wrong with a fastener's numbers, for the fit's error. */
@@ -45,23 +58,55 @@ export function readLength(text: string | undefined, units: Units): Length | nul
 	return v === null ? null : v.value;
 }
 
-function floatingBudget(H: Length, F: Length, T: Length | null): FastenerBudget {
-	const available = sub(H, F);
+/** The clearance hole's share of H − F, and the boundary that gives it. */
+function clearanceHoleShare(hole: FeatureValues): {
+	share: Length | null;
+	modifier: MaterialModifier | null;
+	boundary: string;
+} {
+	const position = hole.controls.find((c) => c.control.characteristic === 'position');
+	if (!position)
+		return { share: null, modifier: null, boundary: 'no position tolerance on the hole' };
+	const t = position.value;
+	const modifier = position.control.modifier;
+	if (modifier === 'mmc')
+		return { share: t, modifier, boundary: 'virtual condition MMC − t (position at MMC)' };
+	if (modifier === 'rfs')
+		return { share: t, modifier, boundary: 'inner boundary MMC − t (position RFS, no bonus)' };
+	if (hole.tolerance === null)
+		return { share: null, modifier, boundary: 'position at LMC on a hole without two limits' };
 	return {
+		share: add(t, hole.tolerance),
+		modifier,
+		boundary: 'inner boundary MMC − t − T (position at LMC; T the hole’s size tolerance)'
+	};
+}
+
+interface Common {
+	H: Length;
+	F: Length;
+	available: Length;
+	modifier: MaterialModifier | null;
+	boundary: string;
+	holeTooSmall: boolean;
+}
+
+function floatingBudget(c: Common, share: Length | null): FastenerBudget {
+	return {
+		...c,
 		formula: 'floating',
-		H,
-		F,
-		available,
-		used: T,
+		used: share,
 		required: null,
-		ok: T === null ? null : T <= available,
-		text: 'floating fastener: T = H − F for each part (ASME Y14.5 Appendix B)'
+		ok: c.holeTooSmall ? false : share === null ? null : share <= c.available,
+		text:
+			c.modifier === 'lmc'
+				? 'floating fastener: t + T = H − F for each part, position at LMC (ASME Y14.5 Appendix B)'
+				: 'floating fastener: T = H − F for each part (ASME Y14.5 Appendix B)'
 	};
 }
 
 function unprojectedBudget(
-	H: Length,
-	F: Length,
+	c: Common,
 	T1: Length | null,
 	T2: Length | undefined,
 	projection: { P: string; D: string },
@@ -71,60 +116,62 @@ function unprojectedBudget(
 	const D = readLength(projection.D, units);
 	if (!P || !D || P < 0 || D <= 0)
 		return { message: 'the projection P and depth D must be sizes above zero' };
-	const available = sub(H, F);
 	const used = T1 !== null && T2 !== undefined ? add(T1, T2) : null;
 	if (T1 === null || T2 === undefined)
 		return {
+			...c,
 			formula: 'fixed-unprojected',
-			H,
-			F,
-			available,
 			used,
 			required: null,
-			ok: null,
+			ok: c.holeTooSmall ? false : null,
 			text: 'fixed fastener without a projected zone: needs both position tolerances'
 		};
 	// H = F + T₁ + T₂(1 + 2P/D), rounded up: the hole must be at least this large.
-	const required = add(add(F, T1), mulDiv(T2, D + 2 * P, D, 'up'));
+	const required = add(add(c.F, T1), mulDiv(T2, D + 2 * P, D, 'up'));
 	return {
+		...c,
 		formula: 'fixed-unprojected',
-		H,
-		F,
-		available,
 		used,
 		required,
-		ok: H >= required,
+		ok: !c.holeTooSmall && c.H >= required,
 		text: 'fixed fastener, tolerance not projected: H = F + T₁ + T₂(1 + 2P/D) (ASME Y14.5 Appendix B)'
 	};
 }
 
-/** The budget of a fastener fit, null when a size is open, or what is wrong with the input. */
+/**
+ * The budget of a fastener fit, null when a size is open, or what is wrong with the input.
+ * `fixedPosition` is T₂ as a Length when the holding hole is a feature (its position tolerance).
+ */
 export function fastenerBudget(
 	hole: FeatureValues,
 	fastener: FeatureValues,
 	input: FastenerInput | undefined,
 	intent: 'floating-fastener' | 'fixed-fastener',
-	units: Units
+	units: Units,
+	fixedPosition?: Length
 ): FastenerBudget | FastenerInputError | null {
 	if (hole.mmc === null || fastener.mmc === null) return null;
-	const H = hole.mmc;
-	const F = fastener.mmc;
-	const position = hole.controls.find((c) => c.control.characteristic === 'position');
-	const T1 = position ? position.value : null;
-	if (intent === 'floating-fastener') return floatingBudget(H, F, T1);
-	const T2 = readLength(input?.fixedPosition, units);
-	if (T2 === null) return { message: `'${input?.fixedPosition}' is not a position tolerance` };
-	if (input?.projection) return unprojectedBudget(H, F, T1, T2, input.projection, units);
-	const available = sub(H, F);
-	const used = T1 !== null && T2 !== undefined ? add(T1, T2) : null;
-	return {
-		formula: 'fixed',
-		H,
-		F,
+	const { share, modifier, boundary } = clearanceHoleShare(hole);
+	const available = sub(hole.mmc, fastener.mmc);
+	const c: Common = {
+		H: hole.mmc,
+		F: fastener.mmc,
 		available,
+		modifier,
+		boundary,
+		holeTooSmall: available < 0
+	};
+	if (intent === 'floating-fastener') return floatingBudget(c, share);
+	const T2 = fixedPosition ?? readLength(input?.fixedPosition, units);
+	if (T2 === null) return { message: `'${input?.fixedPosition}' is not a position tolerance` };
+	if (input?.projection) return unprojectedBudget(c, share, T2, input.projection, units);
+	const used = share !== null && T2 !== undefined ? add(share, T2) : null;
+	return {
+		...c,
+		formula: 'fixed',
 		used,
 		required: null,
-		ok: used === null ? null : used <= available,
+		ok: c.holeTooSmall ? false : used === null ? null : used <= available,
 		text: "fixed fastener: T₁ + T₂ = H − F, with the fixed part's tolerance projected (ASME Y14.5 Appendix B)"
 	};
 }

@@ -1,18 +1,29 @@
 /*
  * A hole with a shaft or a bought fastener: clearances from the limits and from the boundaries,
  * classification, the verdict against the intent, fastener budgets and an optional operating
- * temperature (PRODUCT.md §4). Exact Lengths; strings in the hole's unit.
+ * temperature (PRODUCT.md §4). Each member is read under its own drawing (units, standard,
+ * general tolerance), and the fit is computed in the hole's unit: a shaft drawn in the other
+ * unit has its limits converted inward to the hole's places (convertLimitsInward), so the
+ * converted zone never reaches outside the drawn one. Exact Lengths; strings in the hole's unit.
  */
 import type { CalloutSpec } from './callout-types';
-import { ZERO, formatLength, sub, toLength, type Length, type Units } from './decimal';
+import {
+	ZERO,
+	convertLimitsInward,
+	formatLength,
+	roundToPlaces,
+	sub,
+	type Length,
+	type Units
+} from './decimal';
+import type { DrawingContext } from './drawing-context';
 import { fastenerBudget, readLength, type FastenerBudget, type FastenerInput } from './fastener';
 import {
 	evaluateFeature,
-	exactPlaces,
 	featureValues,
 	formatValue,
-	isSurfaceForm,
 	placesFor,
+	type ControlValues,
 	type FeatureError,
 	type FeatureEvaluation,
 	type FeatureValues,
@@ -21,10 +32,24 @@ import {
 	type GeometricControl,
 	type GoverningStandard
 } from './feature';
+import {
+	allPass,
+	boundaryCheck,
+	boundaryFloor,
+	clearanceText,
+	fastenerCheck,
+	intentChecks,
+	requiredChecks,
+	type Clearances,
+	type FitCheck
+} from './fit-checks';
 import { classifyFit, type FitClassification } from './iso286';
+import { boughtBoundary, matingBoundary, type MatingBoundary } from './mating';
 import { expand, readThermal, type TemperatureInput } from './thermal';
 
 export type { FastenerBudget, FastenerInput } from './fastener';
+export type { FitCheck } from './fit-checks';
+export type { MatingBoundary } from './mating';
 export type { TemperatureInput } from './thermal';
 
 export const FIT_INTENTS = [
@@ -41,7 +66,12 @@ export type FitIntent = (typeof FIT_INTENTS)[number];
 export interface FitMemberInput {
 	callout?: string;
 	spec?: CalloutSpec;
-	/** Defaults to the fit's units. */
+	/**
+	 * The drawing the member sits on, when it is not the fit's own (a journal on the shaft
+	 * drawing in a bore on the bushing drawing): its units, standard and general tolerance.
+	 */
+	drawing?: DrawingContext;
+	/** Defaults to the drawing's units, then the fit's. */
 	units?: Units;
 	controls?: GeometricControl[];
 	overrides?: FeatureOverrides;
@@ -52,10 +82,17 @@ export interface FitInput {
 	hole: FitMemberInput;
 	shaft?: FitMemberInput;
 	fastener?: FastenerInput;
+	/** A fixed fastener's holding hole (tapped or press-fit) as a feature: T₂ is its position tolerance. */
+	fixedHole?: FitMemberInput;
 	units: Units;
 	standard: GoverningStandard;
 	generalTolerance?: GeneralTolerance | null;
 	intent?: FitIntent;
+	/**
+	 * Both members are located by the same datum features: their orientation and location
+	 * controls then enter the boundary check too (see ./mating.ts). Default false.
+	 */
+	sharedDatumFrame?: boolean;
 	/** In the hole's unit. */
 	requiredMinClearance?: string;
 	requiredMaxClearance?: string;
@@ -64,16 +101,17 @@ export interface FitInput {
 
 export interface FitError {
 	ok: false;
-	member: 'hole' | 'shaft' | 'fastener' | 'fit';
+	member: 'hole' | 'shaft' | 'fastener' | 'fixedHole' | 'fit';
 	message: string;
 	position: number | null;
 	field: FeatureError['field'] | 'requiredMinClearance' | 'requiredMaxClearance' | 'temperature';
 }
 
-export interface FitCheck {
-	what: string;
-	ok: boolean;
-	text: string;
+export interface FitTemperature {
+	operating: string;
+	minClearance: Length;
+	maxClearance: Length;
+	classification: FitClassification;
 }
 
 /** A fit's exact values and verdict: a FitEvaluation without the text, for callers that judge many. */
@@ -85,23 +123,23 @@ export interface FitValues {
 	hole: FeatureValues;
 	shaft: FeatureValues;
 	memberKind: 'shaft' | 'fastener';
+	/** The shaft's limits as the fit reads them: in the hole's unit, converted inward when drawn in the other. */
+	shaftLimits: { upper: Length | null; lower: Length | null; converted: boolean };
 	basicSize: Length | null;
 	minClearance: Length | null;
 	maxClearance: Length | null;
 	classification: FitClassification | null;
-	/** From the boundaries (VC, envelope at MMC), when geometric tolerances apply. */
+	sharedDatumFrame: boolean;
+	holeBoundary: MatingBoundary;
+	shaftBoundary: MatingBoundary;
+	/** From the boundaries (VC, envelope at MMC), when controls that count apply. */
 	minClearanceAtBoundary: Length | null;
 	maxClearanceAtBoundary: Length | null;
 	boundaryNote: string | null;
 	checks: FitCheck[];
 	verdict: 'pass' | 'fail' | 'undetermined';
 	fastener: FastenerBudget | null;
-	temperature: {
-		operating: string;
-		minClearance: Length;
-		maxClearance: Length;
-		classification: FitClassification;
-	} | null;
+	temperature: FitTemperature | null;
 }
 
 export interface FitEvaluation extends FitValues {
@@ -114,6 +152,9 @@ export interface FitEvaluation extends FitValues {
 		maxClearanceAtBoundary: string | null;
 		hole: { upper: string | null; lower: string | null };
 		shaft: { upper: string | null; lower: string | null };
+		/** The controls counted in the boundary check, in words ('hole: perpendicularity 0.02 Ⓜ'). */
+		countedControls: string[];
+		/** Rounded to the callouts' places plus one: expansion is no exact size. */
 		temperature: { minClearance: string; maxClearance: string } | null;
 		fastener: {
 			H: string;
@@ -127,23 +168,28 @@ export interface FitEvaluation extends FitValues {
 
 export type FitResult = FitEvaluation | FitError;
 
-/** A member's values, with its text when `text` is set (then a FeatureEvaluation). */
+function joinNotes(a: string | undefined, b: string | undefined): string | undefined {
+	return a && b ? `${a}\n${b}` : (a ?? b);
+}
+
+/** A member's values under its own drawing, with its text when `text` is set. */
 function member(
 	input: FitMemberInput,
 	internal: boolean,
 	fit: FitInput,
 	text: boolean
 ): FeatureValues | FeatureError {
+	const d = input.drawing;
 	return (text ? evaluateFeature : featureValues)({
 		callout: input.callout,
 		spec: input.spec,
 		internal,
-		units: input.units ?? fit.units,
-		standard: fit.standard,
-		generalTolerance: fit.generalTolerance,
+		units: input.units ?? d?.units ?? fit.units,
+		standard: d ? d.standard : fit.standard,
+		generalTolerance: d ? d.generalTolerance : fit.generalTolerance,
 		controls: input.controls,
 		overrides: input.overrides,
-		notes: input.notes
+		notes: d ? joinNotes(d.notes, input.notes) : input.notes
 	});
 }
 
@@ -180,102 +226,6 @@ function fastenerMember(
 	return e;
 }
 
-/** The smallest a hole's mating envelope can be, and the largest a shaft's, from its boundaries. */
-function matingBoundary(f: FeatureValues): {
-	mmcSide: Length | null;
-	lmcSide: Length | null;
-	controlled: boolean;
-} {
-	// A hole's mating envelope is bounded by the smallest of its MMC-side values and the largest
-	// of its LMC-side ones; a shaft's the other way round.
-	let mmcSide: Length | null = null;
-	let lmcSide: Length | null = null;
-	let controlled = false;
-	for (let i = 0; i < f.controls.length; i++) {
-		const c = f.controls[i];
-		if (!c.boundaries || isSurfaceForm(c.control)) continue;
-		controlled = true;
-		const { innerBoundary, outerBoundary } = c.boundaries;
-		mmcSide = bound(mmcSide, f.internal ? innerBoundary : outerBoundary, f.internal);
-		lmcSide = bound(lmcSide, f.internal ? outerBoundary : innerBoundary, !f.internal);
-	}
-	if (f.envelope.applies && f.mmc !== null) mmcSide = bound(mmcSide, f.mmc, f.internal);
-	if (f.lmc !== null) lmcSide = bound(lmcSide, f.lmc, !f.internal);
-	return { mmcSide, lmcSide, controlled };
-}
-
-/** The smaller (or larger) of a running bound and a value; the earlier one on a tie. */
-function bound(so: Length | null, value: Length, smallest: boolean): Length {
-	if (so === null) return value;
-	return smallest === so < value ? so : value;
-}
-
-/** A clearance in the hole's unit with at least the hole's places, more where it needs them. */
-function clearanceText(value: Length, units: Units, places: number): string {
-	return formatLength(value, units, Math.max(places, exactPlaces(value, units)));
-}
-
-function defaultChecks(
-	intent: FitIntent | null,
-	minC: Length | null,
-	maxC: Length | null,
-	units: Units,
-	places: number
-): FitCheck[] {
-	const checks: FitCheck[] = [];
-	if (intent === 'running') {
-		checks.push({
-			what: 'running fit: minimum clearance above zero',
-			ok: minC !== null && minC > 0,
-			text:
-				minC === null
-					? 'minimum clearance unknown'
-					: `minimum clearance ${clearanceText(minC, units, places)}`
-		});
-	} else if (
-		intent === 'locational-clearance' ||
-		intent === 'floating-fastener' ||
-		intent === 'fixed-fastener'
-	) {
-		checks.push({
-			what: 'clearance fit: minimum clearance not below zero',
-			ok: minC !== null && minC >= 0,
-			text:
-				minC === null
-					? 'minimum clearance unknown'
-					: `minimum clearance ${clearanceText(minC, units, places)}`
-		});
-	} else if (intent === 'interference') {
-		checks.push({
-			what: 'interference fit: maximum clearance not above zero',
-			ok: maxC !== null && maxC <= 0,
-			text:
-				maxC === null
-					? 'maximum clearance unknown'
-					: `maximum clearance ${clearanceText(maxC, units, places)}`
-		});
-	}
-	return checks;
-}
-
-/**
- * Clearances, classification and verdict of one fit, without the text: what evaluateFit works
- * out, for callers that judge many fits. The members come back as FeatureValues. Never throws.
- */
-export function fitValues(input: FitInput): FitValues | FitError {
-	return fitWith(input, false);
-}
-
-/** Clearances, classification and verdict of one fit. Never throws. */
-export function evaluateFit(input: FitInput): FitResult {
-	const values = fitWith(input, true);
-	if (!values.ok) return values;
-	// The members were evaluated with their text; the fit's joins the values in place, last.
-	const e = values as FitEvaluation;
-	e.text = fitText(e);
-	return e;
-}
-
 type Members =
 	{ hole: FeatureValues; shaft: FeatureValues; memberKind: 'shaft' | 'fastener' } | FitError;
 
@@ -302,6 +252,44 @@ function members(input: FitInput, text: boolean): Members {
 	};
 }
 
+/**
+ * The places a shaft drawn in the other unit is converted to: the hole's, or more where the
+ * shaft's last place needs them. Inch to mm is exact one place further (0.0001 in = 0.00254 mm);
+ * mm to inch never is, so it goes to the inch grid (6 places), finer than any mm place.
+ */
+function conversionPlaces(hole: FeatureValues, shaft: FeatureValues): number {
+	const needed = hole.units === 'mm' ? shaft.places + 1 : 6;
+	return Math.min(Math.max(hole.places, needed), hole.units === 'mm' ? 7 : 6);
+}
+
+/** The shaft's limits in the hole's unit: as they are, or converted inward (see above). */
+function shaftLimits(
+	hole: FeatureValues,
+	shaft: FeatureValues
+): FitValues['shaftLimits'] | FitError {
+	if (shaft.units === hole.units)
+		return { upper: shaft.upper, lower: shaft.lower, converted: false };
+	const units = hole.units;
+	const places = conversionPlaces(hole, shaft);
+	if (shaft.upper !== null && shaft.lower !== null) {
+		const c = convertLimitsInward(shaft.lower, shaft.upper, units, places);
+		if (c.lower > c.upper)
+			return {
+				ok: false,
+				member: 'shaft',
+				message: `the shaft's tolerance zone is narrower than one place of ${places}-place ${units}`,
+				position: null,
+				field: 'callout'
+			};
+		return { upper: c.upper, lower: c.lower, converted: true };
+	}
+	return {
+		upper: shaft.upper === null ? null : roundToPlaces(shaft.upper, units, places, 'down'),
+		lower: shaft.lower === null ? null : roundToPlaces(shaft.lower, units, places, 'up'),
+		converted: true
+	};
+}
+
 interface AtBoundary {
 	controlled: boolean;
 	min: Length | null;
@@ -310,11 +298,9 @@ interface AtBoundary {
 }
 
 /** Clearances between the members' mating boundaries (VC, envelope at MMC). */
-function boundaryClearances(hole: FeatureValues, shaft: FeatureValues): AtBoundary {
-	const hb = matingBoundary(hole);
-	const sb = matingBoundary(shaft);
+function boundaryClearances(hb: MatingBoundary, sb: MatingBoundary): AtBoundary {
 	const out: AtBoundary = {
-		controlled: hb.controlled || sb.controlled,
+		controlled: hb.counted.length > 0 || sb.counted.length > 0,
 		min: null,
 		max: null,
 		note: null
@@ -340,77 +326,12 @@ function clearanceError(
 	};
 }
 
-/** The checks of stated minimum and maximum clearances. */
-function requiredChecks(
-	reqMin: Length | undefined,
-	reqMax: Length | undefined,
-	minClearance: Length | null,
-	maxClearance: Length | null,
-	units: Units,
-	hp: number
-): FitCheck[] {
-	const checks: FitCheck[] = [];
-	if (reqMin !== undefined) {
-		checks.push({
-			what: `minimum clearance at least ${clearanceText(reqMin, units, hp)}`,
-			ok: minClearance !== null && minClearance >= reqMin,
-			text:
-				minClearance === null
-					? 'minimum clearance unknown'
-					: `minimum clearance ${clearanceText(minClearance, units, hp)}`
-		});
-	}
-	if (reqMax !== undefined) {
-		checks.push({
-			what: `maximum clearance at most ${clearanceText(reqMax, units, hp)}`,
-			ok: maxClearance !== null && maxClearance <= reqMax,
-			text:
-				maxClearance === null
-					? 'maximum clearance unknown (a limit is open)'
-					: `maximum clearance ${clearanceText(maxClearance, units, hp)}`
-		});
-	}
-	return checks;
-}
-
-/** The least clearance the boundaries must leave: stated, or what the intent implies. */
-function boundaryFloor(intent: FitIntent | null, reqMin: Length | undefined): Length | null {
-	if (reqMin !== undefined) return reqMin;
-	if (intent === 'running') return toLength(1);
-	if (
-		intent === 'locational-clearance' ||
-		intent === 'floating-fastener' ||
-		intent === 'fixed-fastener'
-	)
-		return ZERO;
-	return null;
-}
-
-function boundaryCheck(b: AtBoundary, floor: Length, units: Units, hp: number): FitCheck {
-	return {
-		what: 'assembles at the boundaries (virtual condition, envelope)',
-		ok: b.min !== null && b.min >= floor,
-		text:
-			b.min === null
-				? (b.note ?? 'boundary unknown')
-				: `minimum clearance at the boundaries ${clearanceText(b.min, units, hp)}`
-	};
-}
-
-function fastenerCheck(b: FastenerBudget, units: Units, hp: number): FitCheck {
-	return {
-		what: b.text,
-		ok: b.ok === true,
-		text: `H − F = ${clearanceText(b.available, units, hp)}${b.used !== null ? `, position tolerance ${clearanceText(b.used, units, hp)}` : ''}${b.required !== null ? `, hole needed ${clearanceText(b.required, units, hp)}` : ''}`
-	};
-}
-
 /** The clearances at the operating temperature, null without one, or what is wrong with it. */
 function temperatureResult(
 	input: TemperatureInput | undefined,
 	hole: FeatureValues,
-	shaft: FeatureValues
-): FitValues['temperature'] | FitError {
+	shaft: FitValues['shaftLimits']
+): FitTemperature | FitError | null {
 	if (!input) return null;
 	const t = readThermal(input);
 	if (t === null)
@@ -433,47 +354,86 @@ function temperatureResult(
 	};
 }
 
+/** Expansion is no exact size: a thermal clearance is shown to the callouts' places plus one. */
+function thermalText(value: Length, units: Units, places: number): string {
+	return formatLength(value, units, places + 1);
+}
+
+/** The fixed fastener's T₂ from its holding hole, when the fit names one. */
+function fixedHoleTolerance(input: FitInput): Length | undefined | FitError {
+	if (!input.fixedHole) return undefined;
+	const e = member(input.fixedHole, true, input, false);
+	if (!e.ok) return { ...e, member: 'fixedHole' };
+	const position = e.controls.find((c) => c.control.characteristic === 'position');
+	return position ? position.value : undefined;
+}
+
+function fastenerResult(
+	input: FitInput,
+	hole: FeatureValues,
+	shaft: FeatureValues
+): FastenerBudget | FitError | null {
+	const intent = input.intent;
+	if (intent !== 'floating-fastener' && intent !== 'fixed-fastener') return null;
+	const T2 = fixedHoleTolerance(input);
+	if (T2 !== undefined && typeof T2 !== 'number') return T2;
+	const budget = fastenerBudget(hole, shaft, input.fastener, intent, hole.units, T2);
+	if (budget && !('H' in budget))
+		return {
+			ok: false,
+			member: 'fastener',
+			message: budget.message,
+			position: null,
+			field: 'controls'
+		};
+	return budget;
+}
+
 function fitWith(input: FitInput, text: boolean): FitValues | FitError {
 	const m = members(input, text);
 	if ('ok' in m) return m;
 	const { hole, shaft, memberKind } = m;
 	const units = hole.units;
 	const intent = input.intent ?? null;
+	const limits = shaftLimits(hole, shaft);
+	if ('ok' in limits) return limits;
 	const minClearance =
-		hole.lower !== null && shaft.upper !== null ? sub(hole.lower, shaft.upper) : null;
+		hole.lower !== null && limits.upper !== null ? sub(hole.lower, limits.upper) : null;
 	const maxClearance =
-		hole.upper !== null && shaft.lower !== null ? sub(hole.upper, shaft.lower) : null;
-	const classification =
-		minClearance !== null && maxClearance !== null ? classifyFit(minClearance, maxClearance) : null;
-	const atBoundary = boundaryClearances(hole, shaft);
+		hole.upper !== null && limits.lower !== null ? sub(hole.upper, limits.lower) : null;
+	const shared = input.sharedDatumFrame === true;
+	const holeBoundary = matingBoundary(hole, shared);
+	const shaftBoundary =
+		memberKind === 'fastener' ? boughtBoundary(shaft) : matingBoundary(shaft, shared);
+	const atBoundary = boundaryClearances(holeBoundary, shaftBoundary);
 
 	const hp = hole.places;
+	const show = (v: Length) => clearanceText(v, units, hp);
 	const reqMin = readLength(input.requiredMinClearance, units);
 	if (reqMin === null) return clearanceError('requiredMinClearance', input.requiredMinClearance);
 	const reqMax = readLength(input.requiredMaxClearance, units);
 	if (reqMax === null) return clearanceError('requiredMaxClearance', input.requiredMaxClearance);
-	const checks = defaultChecks(intent, minClearance, maxClearance, units, hp);
-	checks.push(...requiredChecks(reqMin, reqMax, minClearance, maxClearance, units, hp));
+	const atLimits: Clearances = { min: minClearance, max: maxClearance, show, prefix: '' };
+	const checks = intentChecks(intent, atLimits);
+	checks.push(...requiredChecks(reqMin, reqMax, atLimits));
 	const floor = atBoundary.controlled ? boundaryFloor(intent, reqMin) : null;
-	if (floor !== null) checks.push(boundaryCheck(atBoundary, floor, units, hp));
+	if (floor !== null) checks.push(boundaryCheck(atBoundary.min, atBoundary.note, floor, show));
 
-	let fastener: FastenerBudget | null = null;
-	if (intent === 'floating-fastener' || intent === 'fixed-fastener') {
-		const budget = fastenerBudget(hole, shaft, input.fastener, intent, units);
-		if (budget && !('H' in budget))
-			return {
-				ok: false,
-				member: 'fastener',
-				message: budget.message,
-				position: null,
-				field: 'controls'
-			};
-		fastener = budget;
-		if (fastener && fastener.ok !== null) checks.push(fastenerCheck(fastener, units, hp));
-	}
+	const fastener = fastenerResult(input, hole, shaft);
+	if (fastener && 'member' in fastener) return fastener;
+	if (fastener && fastener.ok !== null) checks.push(fastenerCheck(fastener, show));
 
-	const temperature = temperatureResult(input.temperature, hole, shaft);
+	const temperature = temperatureResult(input.temperature, hole, limits);
 	if (temperature && 'ok' in temperature) return temperature;
+	if (temperature) {
+		const atT: Clearances = {
+			min: temperature.minClearance,
+			max: temperature.maxClearance,
+			show: (v) => thermalText(v, units, hp),
+			prefix: `at ${temperature.operating} °C: `
+		};
+		checks.push(...intentChecks(intent, atT), ...requiredChecks(reqMin, reqMax, atT));
+	}
 
 	return {
 		ok: true,
@@ -483,10 +443,17 @@ function fitWith(input: FitInput, text: boolean): FitValues | FitError {
 		hole,
 		shaft,
 		memberKind,
+		shaftLimits: limits,
 		basicSize: hole.nominal ?? shaft.nominal ?? null,
 		minClearance,
 		maxClearance,
-		classification,
+		classification:
+			minClearance !== null && maxClearance !== null
+				? classifyFit(minClearance, maxClearance)
+				: null,
+		sharedDatumFrame: shared,
+		holeBoundary,
+		shaftBoundary,
 		minClearanceAtBoundary: atBoundary.min,
 		maxClearanceAtBoundary: atBoundary.max,
 		boundaryNote: atBoundary.note,
@@ -497,43 +464,64 @@ function fitWith(input: FitInput, text: boolean): FitValues | FitError {
 	};
 }
 
+/**
+ * Clearances, classification and verdict of one fit, without the text: what evaluateFit works
+ * out, for callers that judge many fits. The members come back as FeatureValues. Never throws.
+ */
+export function fitValues(input: FitInput): FitValues | FitError {
+	return fitWith(input, false);
+}
+
+/** Clearances, classification and verdict of one fit. Never throws. */
+export function evaluateFit(input: FitInput): FitResult {
+	const values = fitWith(input, true);
+	if (!values.ok) return values;
+	// The members were evaluated with their text; the fit's joins the values in place, last.
+	const e = values as FitEvaluation;
+	e.text = fitText(e);
+	return e;
+}
+
+const SYMBOL = { mmc: ' Ⓜ', lmc: ' Ⓛ', rfs: '' } as const;
+
+function controlWords(who: string, c: ControlValues): string {
+	const zone = c.control.diameterZone ? 'Ø' : '';
+	return `${who}: ${c.control.characteristic.replaceAll('-', ' ')} ${zone}${c.control.value.trim()}${SYMBOL[c.control.modifier]}`;
+}
+
 function fitText(e: FitEvaluation): FitEvaluation['text'] {
-	const { units, hole, shaft, temperature, fastener } = e;
+	const { units, hole, shaft, temperature, fastener, shaftLimits: sl } = e;
 	const hp = hole.places;
 	const sp = shaft.units === units ? shaft.places : hp;
+	const show = (v: Length | null) => (v === null ? null : clearanceText(v, units, hp));
 	return {
-		minClearance: clearanceOrNull(e.minClearance, units, hp),
-		maxClearance: clearanceOrNull(e.maxClearance, units, hp),
-		minClearanceAtBoundary: clearanceOrNull(e.minClearanceAtBoundary, units, hp),
-		maxClearanceAtBoundary: clearanceOrNull(e.maxClearanceAtBoundary, units, hp),
+		minClearance: show(e.minClearance),
+		maxClearance: show(e.maxClearance),
+		minClearanceAtBoundary: show(e.minClearanceAtBoundary),
+		maxClearanceAtBoundary: show(e.maxClearanceAtBoundary),
 		hole: { upper: hole.text.upper, lower: hole.text.lower },
 		shaft: {
-			upper: formatValue(shaft.upper, units, placesFor([shaft.upper], units, sp)),
-			lower: formatValue(shaft.lower, units, placesFor([shaft.lower], units, sp))
+			upper: formatValue(sl.upper, units, placesFor([sl.upper], units, sp)),
+			lower: formatValue(sl.lower, units, placesFor([sl.lower], units, sp))
 		},
+		countedControls: [
+			...e.holeBoundary.counted.map((c) => controlWords('hole', c)),
+			...e.shaftBoundary.counted.map((c) => controlWords(e.memberKind, c))
+		],
 		temperature: temperature
 			? {
-					minClearance: clearanceText(temperature.minClearance, units, hp),
-					maxClearance: clearanceText(temperature.maxClearance, units, hp)
+					minClearance: thermalText(temperature.minClearance, units, hp),
+					maxClearance: thermalText(temperature.maxClearance, units, hp)
 				}
 			: null,
 		fastener: fastener
 			? {
-					H: clearanceText(fastener.H, units, hp),
-					F: clearanceText(fastener.F, units, hp),
-					available: clearanceText(fastener.available, units, hp),
-					used: clearanceOrNull(fastener.used, units, hp),
-					required: clearanceOrNull(fastener.required, units, hp)
+					H: show(fastener.H)!,
+					F: show(fastener.F)!,
+					available: show(fastener.available)!,
+					used: show(fastener.used),
+					required: show(fastener.required)
 				}
 			: null
 	};
-}
-
-function allPass(checks: FitCheck[]): boolean {
-	for (let i = 0; i < checks.length; i++) if (!checks[i].ok) return false;
-	return true;
-}
-
-function clearanceOrNull(value: Length | null, units: Units, places: number): string | null {
-	return value === null ? null : clearanceText(value, units, places);
 }

@@ -17,6 +17,8 @@ import type { ResultValue, RulebookDrawing, RulebookFeature } from './types';
 
 export interface FeatureContext {
 	feature: RulebookFeature;
+	/** The drawing the feature sits on: its own when it has one, else the drawing judged. */
+	drawing: RulebookDrawing;
 	index: number;
 	spec: CalloutSpec | null;
 	parseError: { message: string; position: number } | null;
@@ -32,12 +34,14 @@ export interface FeatureContext {
 export function featureContext(
 	feature: RulebookFeature,
 	index: number,
-	drawing: RulebookDrawing
+	judged: RulebookDrawing
 ): FeatureContext {
+	const drawing = feature.drawing ?? judged;
 	const parsed = parseCallout(feature.callout ?? '', { units: drawing.units });
 	if (!parsed.ok)
 		return {
 			feature,
+			drawing,
 			index,
 			spec: null,
 			parseError: { message: parsed.message, position: parsed.position },
@@ -65,6 +69,7 @@ export function featureContext(
 	const { standard, assumed } = effectiveStandard(drawing.standard, spec, drawing.generalTolerance);
 	return {
 		feature,
+		drawing,
 		index,
 		spec,
 		parseError: null,

@@ -21,6 +21,27 @@ import {
 
 const RULE_ORDER = new Map<string, number>(RULE_CODES.map((c, i) => [c, i]));
 
+/** The features a fit names: hole, shaft and a fixed fastener's holding hole. */
+function memberIds(fit: RulebookFit): (string | null | undefined)[] {
+	return [fit.holeFeatureId, fit.shaftFeatureId, fit.fixedHoleFeatureId];
+}
+
+function references(fit: RulebookFit, featureId: string): boolean {
+	return (
+		fit.holeFeatureId === featureId ||
+		fit.shaftFeatureId === featureId ||
+		fit.fixedHoleFeatureId === featureId
+	);
+}
+
+function roleOf(fit: RulebookFit, featureId: string): Membership['role'] {
+	return fit.holeFeatureId === featureId
+		? 'hole'
+		: fit.shaftFeatureId === featureId
+			? 'shaft'
+			: 'fixed-hole';
+}
+
 export interface Scope {
 	drawing: boolean;
 	featureIds: string[];
@@ -69,7 +90,7 @@ function indexFits(fits: readonly RulebookFit[]) {
 	for (let i = 0; i < fits.length; i++) {
 		const fit = fits[i];
 		fitAt.set(fit.id, i);
-		for (const featureId of [fit.holeFeatureId, fit.shaftFeatureId]) {
+		for (const featureId of memberIds(fit)) {
 			if (!featureId) continue;
 			const list = fitsOf.get(featureId);
 			if (!list) fitsOf.set(featureId, [fit.id]);
@@ -130,7 +151,7 @@ class Lookup {
 			const at = this.fitPosition(fitId);
 			if (at === null) continue;
 			const fit = this.fits[at];
-			if (fit.holeFeatureId === featureId || fit.shaftFeatureId === featureId) out.push(at);
+			if (references(fit, featureId)) out.push(at);
 			else if (this.rebuild()) return this.fitsReferencing(featureId);
 		}
 		return out.sort((a, b) => a - b);
@@ -153,7 +174,8 @@ interface ResolvedScope {
 	/** Per feature position: the positions of the fits it is a member of, ascending. */
 	memberships: { get(at: number): number[] | undefined };
 	/**
-	 * A full run's member positions, per fit: hole at 2i, shaft at 2i + 1, -1 for none or one
+	 * A full run's member positions, per fit: hole at 3i, shaft at 3i + 1, holding hole at
+	 * 3i + 2, -1 for none or one
 	 * not found, so the fit pass need not look them up again. Null when limited by `only`.
 	 */
 	members: Int32Array | null;
@@ -164,16 +186,19 @@ function resolveScope(input: RulebookInput, lookup: Lookup): ResolvedScope {
 	if (!only) {
 		// Arrays by position rather than maps: a full run touches every feature.
 		const byFeature: (number[] | undefined)[] = new Array(features.length);
-		const members = new Int32Array(2 * fits.length);
+		const members = new Int32Array(3 * fits.length);
 		for (let i = 0; i < fits.length; i++) {
-			const { holeFeatureId, shaftFeatureId } = fits[i];
+			const { holeFeatureId, shaftFeatureId, fixedHoleFeatureId } = fits[i];
 			// As the fit pass reads them: the hole's id as given, the shaft's only when there is one.
 			const hole = lookup.featurePosition(holeFeatureId);
 			const shaft = shaftFeatureId ? lookup.featurePosition(shaftFeatureId) : null;
-			members[2 * i] = hole ?? -1;
-			members[2 * i + 1] = shaft ?? -1;
+			const fixed = fixedHoleFeatureId ? lookup.featurePosition(fixedHoleFeatureId) : null;
+			members[3 * i] = hole ?? -1;
+			members[3 * i + 1] = shaft ?? -1;
+			members[3 * i + 2] = fixed ?? -1;
 			if (holeFeatureId && hole !== null) addMembership(byFeature, hole, i);
 			if (shaft !== null) addMembership(byFeature, shaft, i);
+			if (fixed !== null) addMembership(byFeature, fixed, i);
 		}
 		return {
 			drawing: true,
@@ -198,7 +223,7 @@ function resolveScope(input: RulebookInput, lookup: Lookup): ResolvedScope {
 	for (const at of touched) for (const f of lookup.fitsReferencing(features[at].id)) fitSet.add(f);
 	const featureSet = new Set(touched);
 	for (const f of fitSet) {
-		for (const id of [fits[f].holeFeatureId, fits[f].shaftFeatureId]) {
+		for (const id of memberIds(fits[f])) {
 			const at = id ? lookup.featurePosition(id) : null;
 			if (at !== null) featureSet.add(at);
 		}
@@ -207,8 +232,7 @@ function resolveScope(input: RulebookInput, lookup: Lookup): ResolvedScope {
 		const id = features[at].id;
 		const list = new Set(lookup.fitsReferencing(id));
 		// A touched fit may have just started referencing the feature.
-		for (const f of touchedFits)
-			if (fits[f].holeFeatureId === id || fits[f].shaftFeatureId === id) list.add(f);
+		for (const f of touchedFits) if (references(fits[f], id)) list.add(f);
 		if (list.size)
 			memberships.set(
 				at,
@@ -268,6 +292,31 @@ function drawingRules(
 	return sortFindings(out);
 }
 
+/** Where a fit's members sit, or null when one it names is not there. */
+function memberPositions(
+	scope: ResolvedScope,
+	lookup: Lookup,
+	fit: RulebookFit,
+	f: number
+): { hole: number; shaft: number | null; fixed: number | null } | null {
+	let hole: number | null;
+	let shaft: number | null;
+	let fixed: number | null;
+	if (scope.members) {
+		const [h, s, x] = [scope.members[3 * f], scope.members[3 * f + 1], scope.members[3 * f + 2]];
+		hole = h < 0 ? null : h;
+		shaft = s < 0 ? null : s;
+		fixed = x < 0 ? null : x;
+	} else {
+		hole = lookup.featurePosition(fit.holeFeatureId);
+		shaft = fit.shaftFeatureId ? lookup.featurePosition(fit.shaftFeatureId) : null;
+		fixed = fit.fixedHoleFeatureId ? lookup.featurePosition(fit.fixedHoleFeatureId) : null;
+	}
+	if (hole === null || (fit.shaftFeatureId && shaft === null)) return null;
+	if (fit.fixedHoleFeatureId && fixed === null) return null;
+	return { hole, shaft, fixed };
+}
+
 /** Runs the rulebook. See `scopeOf` for what a run limited by `only` judges. */
 export function evaluate(input: RulebookInput): RuleResult[] {
 	const { drawing, features, fits, team } = input;
@@ -318,7 +367,7 @@ export function evaluate(input: RulebookInput): RuleResult[] {
 		const memberOf: Membership[] = [];
 		for (const f of scope.memberships.get(at) ?? []) {
 			const fit = fits[f];
-			memberOf.push({ fit, role: fit.holeFeatureId === ctx.feature.id ? 'hole' : 'shaft' });
+			memberOf.push({ fit, role: roleOf(fit, ctx.feature.id) });
 		}
 		const findings: Finding[] = [];
 		featureRules(ctx, { drawing, team, datumLetters, memberships: memberOf }, findings);
@@ -337,22 +386,14 @@ export function evaluate(input: RulebookInput): RuleResult[] {
 	for (const f of scope.fits) {
 		const fit = fits[f];
 		if (!fit.shaftFeatureId && !fit.fastener) continue;
-		let holeAt: number | null;
-		let shaftAt: number | null;
-		if (scope.members) {
-			const h = scope.members[2 * f];
-			const s = scope.members[2 * f + 1];
-			holeAt = h < 0 ? null : h;
-			shaftAt = s < 0 ? null : s;
-		} else {
-			holeAt = lookup.featurePosition(fit.holeFeatureId);
-			shaftAt = fit.shaftFeatureId ? lookup.featurePosition(fit.shaftFeatureId) : null;
-		}
-		if (holeAt === null || (fit.shaftFeatureId && shaftAt === null)) continue;
-		if (!readableAt(holeAt) || (shaftAt !== null && !readableAt(shaftAt))) continue;
-		const hole = features[holeAt];
-		const shaft = shaftAt === null ? null : features[shaftAt];
-		const r = evaluateFitFor(fit, hole, shaft, drawing);
+		const at = memberPositions(scope, lookup, fit, f);
+		if (at === null) continue;
+		if (!readableAt(at.hole) || (at.shaft !== null && !readableAt(at.shaft))) continue;
+		if (at.fixed !== null && !readableAt(at.fixed)) continue;
+		const hole = features[at.hole];
+		const shaft = at.shaft === null ? null : features[at.shaft];
+		const fixed = at.fixed === null ? null : features[at.fixed];
+		const r = evaluateFitFor(fit, hole, shaft, fixed, drawing);
 		if (!r.ok) continue;
 		const findings: Finding[] = [];
 		fitRules(fit, r, hole, shaft, findings);

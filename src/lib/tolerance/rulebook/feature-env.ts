@@ -7,7 +7,7 @@ import type { RulebookDrawing, RulebookFit, RulebookTeam } from './types';
 
 export interface Membership {
 	fit: RulebookFit;
-	role: 'hole' | 'shaft';
+	role: 'hole' | 'shaft' | 'fixed-hole';
 }
 
 export interface FeatureEnv {

@@ -47,7 +47,7 @@ export function featureRules(ctx: FeatureContext, env: FeatureEnv, out: Finding[
 	const { feature, spec, evaluation: e } = ctx;
 	if (!spec || !e) return;
 	const thread = spec.kind === 'thread' || feature.kind === 'thread';
-	const f = new LengthFormat(env.drawing.units, e.places);
+	const f = new LengthFormat(ctx.drawing.units, e.places);
 	if (!thread) {
 		limitRules(ctx, env, out, f);
 		generalToleranceRule(ctx, env, out, f);

@@ -20,7 +20,7 @@ export function generalToleranceRule(
 	out: Finding[],
 	f: LengthFormat
 ): void {
-	if (missingLimitsCause(ctx, env) !== 'no-general-tolerance') return;
+	if (missingLimitsCause(ctx) !== 'no-general-tolerance') return;
 	const nominal = ctx.spec!.nominal!.value;
 	out.push({
 		rule: 'DOC-01',

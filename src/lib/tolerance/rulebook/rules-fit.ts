@@ -4,10 +4,16 @@
  */
 import { ZERO, parseDecimal, sub, type Length, type Units } from '../decimal';
 import type { FeatureValues } from '../feature';
-import { fitValues, type FitIntent, type FitMemberInput, type FitValues } from '../fit';
+import {
+	fitValues,
+	type FastenerBudget,
+	type FitIntent,
+	type FitMemberInput,
+	type FitValues,
+	type MatingBoundary
+} from '../fit';
 import {
 	LengthFormat,
-	boundingControls,
 	characteristicWord,
 	memberWord,
 	signed,
@@ -52,27 +58,8 @@ function fails(clearance: Length, req: { value: Length; strict: boolean }): bool
 	return req.strict ? clearance <= req.value : clearance < req.value;
 }
 
-/** The mating boundary on the MMC side and what it is, for the boundary check. */
-function mmcBoundary(e: FeatureValues): { at: Length; what: string; bounded: boolean } | null {
-	if (e.mmc === null) return null;
-	let at = e.mmc;
-	let what = 'MMC';
-	let bounded = e.envelope.applies;
-	if (bounded) what = 'MMC (envelope)';
-	for (const c of boundingControls(e)) {
-		const b = c.boundaries!;
-		const edge = e.internal ? b.innerBoundary : b.outerBoundary;
-		if (!bounded || (e.internal ? edge < at : edge > at)) {
-			at = edge;
-			what = c.control.modifier === 'mmc' ? 'VC' : 'boundary';
-			bounded = true;
-		}
-	}
-	return { at, what, bounded };
-}
-
 /** Words for a member whose mating envelope nothing bounds on the MMC side. */
-function unbounded(b: { bounded: boolean }, e: FeatureValues): string {
+function unbounded(b: MatingBoundary, e: FeatureValues): string {
 	return b.bounded
 		? ''
 		: ` (nothing bounds it; taken at its ${e.internal ? 'smallest' : 'largest'} size)`;
@@ -83,7 +70,8 @@ function memberInput(c: RulebookFeature, drawing: RulebookDrawing): FitMemberInp
 		callout: c.callout,
 		controls: c.controls,
 		overrides: c.overrides,
-		notes: c.notes ? (drawing.notes ? `${drawing.notes}\n${c.notes}` : c.notes) : drawing.notes
+		notes: c.notes,
+		drawing: c.drawing ?? drawing
 	};
 }
 
@@ -91,11 +79,13 @@ export function evaluateFitFor(
 	fit: RulebookFit,
 	hole: RulebookFeature,
 	shaft: RulebookFeature | null,
+	fixedHole: RulebookFeature | null,
 	drawing: RulebookDrawing
 ) {
 	return fitValues({
 		hole: memberInput(hole, drawing),
 		shaft: shaft ? memberInput(shaft, drawing) : undefined,
+		fixedHole: fixedHole ? memberInput(fixedHole, drawing) : undefined,
 		fastener: fit.fastener
 			? {
 					callout: fit.fastener.callout,
@@ -107,6 +97,7 @@ export function evaluateFitFor(
 		standard: drawing.standard,
 		generalTolerance: drawing.generalTolerance,
 		intent: fit.intent,
+		sharedDatumFrame: fit.sharedDatumFrame,
 		requiredMinClearance: fit.requiredMinClearance ?? undefined,
 		requiredMaxClearance: fit.requiredMaxClearance ?? undefined
 	});
@@ -152,10 +143,11 @@ function boundaryRule(w: FitWords, out: Finding[]): void {
 	const { fit, r, f, req, holeWord, shaftWord, intent } = w;
 	const fastenerIntent = fit.intent === 'floating-fastener' || fit.intent === 'fixed-fastener';
 	if (!req || fastenerIntent || r.minClearance === null) return;
-	const hb = mmcBoundary(r.hole);
-	const sb = mmcBoundary(r.shaft);
-	const controlled = boundingControls(r.hole).length > 0 || boundingControls(r.shaft).length > 0;
-	if (!controlled || !hb || !sb) return;
+	// The boundaries fit.ts worked out, from the controls that count for one pin in one hole.
+	const hb = r.holeBoundary;
+	const sb = r.shaftBoundary;
+	if (hb.counted.length === 0 && sb.counted.length === 0) return;
+	if (hb.at === null || sb.at === null) return;
 	const c = sub(hb.at, sb.at);
 	if (!fails(c, req)) return;
 	const holeAt = f.show(hb.at);
@@ -213,17 +205,35 @@ function looseEndRules(w: FitWords, out: Finding[]): void {
 		});
 }
 
+/** FIT-05 when the fastener does not pass the hole at MMC at all (H < F). */
+function holeTooSmall(b: FastenerBudget, f: LengthFormat, out: Finding[]): void {
+	out.push({
+		rule: 'FIT-05',
+		cause: 'hole-too-small',
+		message: 'The clearance hole at MMC is smaller than the fastener: it does not assemble.',
+		values: [
+			value('H (hole MMC)', b.H, f.show(b.H)),
+			value('F (fastener MMC)', b.F, f.show(b.F)),
+			value('H − F', b.available, f.show(b.available))
+		],
+		line: `H ${f.show(b.H)} − F ${f.show(b.F)} = ${signed(f.show(b.available))}: the hole at MMC is smaller than the fastener`,
+		fix: 'Enlarge the clearance hole to at least the fastener size plus the position tolerances.'
+	});
+}
+
 /** FIT-05: the fastener budget. */
 function budgetRule(w: FitWords, out: Finding[]): void {
 	const b = w.r.fastener;
 	const f = w.f;
-	if (!b || b.ok !== false || (b.formula !== 'floating' && b.available < 0)) return;
+	if (!b || b.ok !== false) return;
+	if (b.holeTooSmall) return holeTooSmall(b, f, out);
 	const budget = `H ${f.show(b.H)} − F ${f.show(b.F)} = ${signed(f.show(b.available))}`;
+	const share = b.modifier === 'lmc' ? 't + T' : 'position';
 	let line: string;
 	if (b.required !== null)
 		line = `hole needed F + T₁ + T₂(1 + 2P/D) = ${f.show(b.required)} > H ${f.show(b.H)}`;
 	else if (b.formula === 'floating')
-		line = `position ${f.show(b.used!)} > ${budget} (floating fastener: T = H − F)`;
+		line = `${share} ${f.show(b.used!)} > ${budget} (floating fastener: ${b.modifier === 'lmc' ? 't + T' : 'T'} = H − F)`;
 	else line = `T₁ + T₂ = ${f.show(b.used!)} > ${budget} (fixed fastener: T₁ + T₂ = H − F)`;
 	out.push({
 		rule: 'FIT-05',
@@ -234,7 +244,8 @@ function budgetRule(w: FitWords, out: Finding[]): void {
 			value('F (fastener MMC)', b.F, f.show(b.F)),
 			value('H − F', b.available, f.show(b.available)),
 			value('position tolerance', b.used, b.used === null ? '' : f.show(b.used)),
-			...(b.required !== null ? [value('hole needed', b.required, f.show(b.required))] : [])
+			...(b.required !== null ? [value('hole needed', b.required, f.show(b.required))] : []),
+			value('boundary', null, b.boundary)
 		],
 		line,
 		fix: 'Reduce the position tolerance, or enlarge the clearance hole.'
@@ -281,7 +292,9 @@ const LOCATING: readonly Characteristic[] = [
 export function memberLocationRule(ctx: FeatureContext, env: FeatureEnv, out: Finding[]): void {
 	if (env.memberships.length === 0) return;
 	const { feature } = ctx;
-	const general = env.drawing.generalTolerance;
+	// A part bought to a standard is located by the standard and its own fit, not by this drawing.
+	if (feature.boughtOut) return;
+	const general = ctx.drawing.generalTolerance;
 	const generalGeometric =
 		general?.kind === 'iso2768' && !!general.geometric && !isAsme(ctx.standard);
 	let located = false;

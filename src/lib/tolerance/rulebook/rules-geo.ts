@@ -26,17 +26,14 @@ function modifierSymbol(m: GeometricControl['modifier']): string {
 /** One control's words, made only when a finding needs them (most controls are fine). */
 class ControlWords {
 	private causes: string[] | null = null;
-	constructor(
-		private ctx: FeatureContext,
-		private env: FeatureEnv
-	) {}
+	constructor(private ctx: FeatureContext) {}
 	cause(i: number): string {
 		this.causes ??= controlCauses(this.ctx.feature.controls ?? []);
 		return this.causes[i];
 	}
 	value(i: number): string {
 		const e = this.ctx.evaluation!;
-		return show(e.controls[i].value, this.env.drawing.units, e.places);
+		return show(e.controls[i].value, this.ctx.drawing.units, e.places);
 	}
 }
 
@@ -155,7 +152,7 @@ export function geometricRules(
 ): void {
 	const n = ctx.evaluation!.controls.length;
 	if (n > 0) {
-		const words = new ControlWords(ctx, env);
+		const words = new ControlWords(ctx);
 		for (let i = 0; i < n; i++) {
 			modifierRules(ctx, i, words, thread, out);
 			zeroRule(ctx, i, words, out);

@@ -184,7 +184,7 @@ function placesRule(ctx: FeatureContext, out: Finding[], f: LengthFormat): void 
  * Why a feature has no limits, as a cause: 'reference', 'basic', 'no-size', 'not-covered', or
  * 'no-general-tolerance' (which is DOC-01's, not LIM-01's). Null when it has limits.
  */
-export function missingLimitsCause(ctx: FeatureContext, env: FeatureEnv): string | null {
+export function missingLimitsCause(ctx: FeatureContext): string | null {
 	const spec = ctx.spec!;
 	if (ctx.evaluation!.limitsSource !== 'none') return null;
 	// A class not defined at the size is LIM-04's.
@@ -192,13 +192,13 @@ export function missingLimitsCause(ctx: FeatureContext, env: FeatureEnv): string
 	if (cls && spec.nominal && !isoLimits(spec.nominal.value, cls.code).ok) return null;
 	if (spec.kind === 'reference' || spec.kind === 'basic') return spec.kind;
 	if (spec.nominal === null) return 'no-size';
-	if (!env.drawing.generalTolerance) return 'no-general-tolerance';
+	if (!ctx.drawing.generalTolerance) return 'no-general-tolerance';
 	return 'not-covered';
 }
 
 /** LIM-01: no limits at all. */
 function missingLimitsRule(ctx: FeatureContext, env: FeatureEnv, out: Finding[]): void {
-	const cause = missingLimitsCause(ctx, env);
+	const cause = missingLimitsCause(ctx);
 	if (cause === null || cause === 'no-general-tolerance') return;
 	const { feature } = ctx;
 	const e = ctx.evaluation!;

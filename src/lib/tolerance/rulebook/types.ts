@@ -63,6 +63,13 @@ export interface RulebookFeature {
 	/** The datum letter this feature defines, if it is a datum feature. */
 	datumFeature?: string;
 	notes?: string;
+	/**
+	 * The drawing this feature sits on, when it is not the drawing judged: a fit member on
+	 * another drawing is read and judged under its own units, standard and general tolerance.
+	 */
+	drawing?: RulebookDrawing;
+	/** Bought to a standard (a dowel pin, a bushing): not asked for a location control (FIT-06). */
+	boughtOut?: boolean;
 }
 
 export interface RulebookFastener {
@@ -79,6 +86,13 @@ export interface RulebookFit {
 	shaftFeatureId?: string | null;
 	fastener?: RulebookFastener | null;
 	intent: FitIntent;
+	/**
+	 * A fixed fastener's holding hole (tapped or press-fit) as a feature: T₂ is its position
+	 * tolerance. `fastener.fixedPosition` gives T₂ as a number instead.
+	 */
+	fixedHoleFeatureId?: string | null;
+	/** Both members are located by the same datum features (see ../mating.ts). Default false. */
+	sharedDatumFrame?: boolean;
 	requiredMinClearance?: string | null;
 	requiredMaxClearance?: string | null;
 }
