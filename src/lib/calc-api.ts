@@ -14,7 +14,7 @@ import {
 } from '$lib/schemas/calc';
 import { formatCallout } from '$lib/tolerance/callout-format';
 import { evaluateFeature, type FeatureEvaluation } from '$lib/tolerance/feature';
-import { evaluateFit, type FitEvaluation } from '$lib/tolerance/fit';
+import { evaluateFit, type FitEvaluation, type FitMemberInput } from '$lib/tolerance/fit';
 import { adviseFit } from '$lib/tolerance/fit-advisor';
 
 export function invalid(message: string, extra: Record<string, unknown> = {}): never {
@@ -100,6 +100,12 @@ export function sizeJson(f: FeatureEvaluation) {
 export function fitJson(fit: FitEvaluation) {
 	const boundaries = fit.hole.controls.length > 0 || fit.shaft.controls.length > 0;
 	return {
+		...(fit.shaftLimits.converted
+			? {
+					// The other member's limits in the hole's unit, converted inward.
+					[`${fit.memberKind}InHoleUnits`]: fit.text.shaft
+				}
+			: {}),
 		units: fit.units,
 		intent: fit.intent,
 		hole: sizeJson(fit.hole),
@@ -109,6 +115,8 @@ export function fitJson(fit: FitEvaluation) {
 		classification: fit.classification,
 		...(boundaries
 			? {
+					sharedDatumFrame: fit.sharedDatumFrame,
+					countedControls: fit.text.countedControls,
 					minClearanceAtBoundary: fit.text.minClearanceAtBoundary,
 					maxClearanceAtBoundary: fit.text.maxClearanceAtBoundary,
 					...(fit.boundaryNote ? { boundaryNote: fit.boundaryNote } : {})
@@ -126,6 +134,9 @@ export function fitJson(fit: FitEvaluation) {
 						used: fit.text.fastener?.used,
 						required: fit.text.fastener?.required,
 						ok: fit.fastener.ok,
+						modifier: fit.fastener.modifier,
+						boundary: fit.fastener.boundary,
+						holeTooSmall: fit.fastener.holeTooSmall,
 						rule: fit.fastener.text
 					}
 				}
@@ -136,7 +147,8 @@ export function fitJson(fit: FitEvaluation) {
 						operating: fit.temperature.operating,
 						minClearance: fit.text.temperature?.minClearance,
 						maxClearance: fit.text.temperature?.maxClearance,
-						classification: fit.temperature.classification
+						classification: fit.temperature.classification,
+						checks: fit.checks.filter((c) => c.what.startsWith('at '))
 					}
 				}
 			: {}),
@@ -164,16 +176,39 @@ export function calcSize(data: unknown, from: 'query' | 'body') {
 	return { ...sizeJson(result), standard: input.standard, caution: CAUTION };
 }
 
+type FitBody = z.output<typeof fitInput>;
+
+/** A member as the core takes it: on its own drawing when it names a standard or general tolerance. */
+function memberInput(m: FitBody['hole'], fit: FitBody): FitMemberInput {
+	const own = m.standard !== undefined || m.generalTolerance !== undefined;
+	return {
+		callout: m.callout,
+		units: m.units,
+		controls: m.geometric,
+		overrides: m.overrides,
+		notes: m.notes,
+		drawing: own
+			? {
+					units: m.units ?? fit.units,
+					standard: m.standard ?? fit.standard,
+					generalTolerance:
+						m.generalTolerance !== undefined ? m.generalTolerance : fit.generalTolerance
+				}
+			: undefined
+	};
+}
+
 export function calcFit(data: unknown) {
 	const input = parseOrFail(fitInput, data);
 	const result = evaluateFit({
-		hole: { ...input.hole, controls: input.hole.geometric },
-		shaft: input.shaft ? { ...input.shaft, controls: input.shaft.geometric } : undefined,
+		hole: memberInput(input.hole, input),
+		shaft: input.shaft ? memberInput(input.shaft, input) : undefined,
 		fastener: input.fastener,
 		units: input.units,
 		standard: input.standard,
 		generalTolerance: input.generalTolerance,
 		intent: input.intent,
+		sharedDatumFrame: input.sharedDatumFrame,
 		requiredMinClearance: input.requiredMinClearance,
 		requiredMaxClearance: input.requiredMaxClearance,
 		temperature: input.temperature

@@ -211,6 +211,119 @@ describe('POST /api/v1/calc/fit', () => {
 		expect(r.body).toHaveProperty('fastener');
 	});
 
+	test('the fastener budget by modifier: t + T at LMC (Ø6.6 +0.2/0, Ø0.5 Ⓛ, M6; recalled)', async () => {
+		const budget = async (modifier: string) =>
+			(
+				await call(fit.POST as Handler, '/api/v1/calc/fit', {
+					hole: {
+						callout: 'Ø6.6 +0.2/0',
+						geometric: { characteristic: 'position', value: '0.5', diameterZone: true, modifier }
+					},
+					fastener: { callout: 'M6' },
+					units: 'mm',
+					standard: 'iso-8015',
+					intent: 'floating-fastener'
+				})
+			).body;
+		expect((await budget('mmc')).fastenerBudget).toMatchObject({
+			used: '0.5',
+			ok: true,
+			modifier: 'mmc'
+		});
+		const lmc = await budget('lmc');
+		expect(lmc.fastenerBudget).toMatchObject({
+			available: '0.6',
+			used: '0.7',
+			ok: false,
+			modifier: 'lmc',
+			holeTooSmall: false
+		});
+		expect(lmc.fastenerBudget.boundary).toContain('MMC − t − T');
+		expect(lmc.verdict).toBe('fail');
+	});
+
+	test('a fixed fastener larger than its hole fails with the numbers', async () => {
+		const r = await call(fit.POST as Handler, '/api/v1/calc/fit', {
+			hole: { callout: 'Ø5.5 ±0.1' },
+			fastener: { callout: 'M6', fixedPosition: '0.1' },
+			units: 'mm',
+			standard: 'iso-8015',
+			intent: 'fixed-fastener'
+		});
+		expect(r.body.fastenerBudget).toMatchObject({
+			available: '-0.6',
+			ok: false,
+			holeTooSmall: true
+		});
+		expect(r.body.verdict).toBe('fail');
+	});
+
+	test('sharedDatumFrame decides whether perpendicularity enters the boundary', async () => {
+		const body = (sharedDatumFrame?: boolean) => ({
+			hole: {
+				callout: 'Ø12 H7 Ⓔ',
+				geometric: {
+					characteristic: 'perpendicularity',
+					value: '0.02',
+					diameterZone: true,
+					modifier: 'mmc',
+					datums: ['A']
+				}
+			},
+			shaft: { callout: 'Ø12 g6 Ⓔ' },
+			units: 'mm',
+			standard: 'iso-8015',
+			intent: 'running',
+			...(sharedDatumFrame === undefined ? {} : { sharedDatumFrame })
+		});
+		const alone = (await call(fit.POST as Handler, '/api/v1/calc/fit', body())).body;
+		expect(alone).toMatchObject({ sharedDatumFrame: false, countedControls: [], verdict: 'pass' });
+		const shared = (await call(fit.POST as Handler, '/api/v1/calc/fit', body(true))).body;
+		expect(shared).toMatchObject({
+			countedControls: ['hole: perpendicularity Ø0.02 Ⓜ'],
+			minClearanceAtBoundary: '-0.014',
+			verdict: 'fail'
+		});
+	});
+
+	test('a fit at its operating temperature fails when it fails there', async () => {
+		const r = await call(fit.POST as Handler, '/api/v1/calc/fit', {
+			hole: { callout: 'Ø18 H7' },
+			shaft: { callout: 'Ø18 p6' },
+			units: 'mm',
+			standard: 'iso-8015',
+			intent: 'interference',
+			temperature: { operating: '80', holeCoefficient: '23.6', shaftCoefficient: '17.5' }
+		});
+		expect(r.body).toMatchObject({
+			maxClearance: '0.000',
+			verdict: 'fail',
+			temperature: {
+				operating: '80',
+				minClearance: '-0.0224',
+				maxClearance: '0.0066',
+				classification: 'transition',
+				checks: [{ ok: false, text: 'maximum clearance 0.0066' }]
+			}
+		});
+	});
+
+	test('members on different drawings: each its own standard, the fit in the hole unit', async () => {
+		const r = await call(fit.POST as Handler, '/api/v1/calc/fit', {
+			hole: { callout: 'Ø6.4 +0.1/0', standard: 'iso' },
+			shaft: { callout: 'Ø.2490-.2495', units: 'in', standard: 'asme' },
+			units: 'mm'
+		});
+		expect(r.status).toBe(200);
+		expect(r.body).toMatchObject({
+			units: 'mm',
+			minClearance: '0.0627',
+			shaftInHoleUnits: { upper: '6.3373', lower: '6.3246' },
+			hole: { envelope: { applies: false } },
+			shaft: { units: 'in', envelope: { applies: true } }
+		});
+	});
+
 	test('a bad shaft callout names the member and the position', async () => {
 		const r = await call(fit.POST as Handler, '/api/v1/calc/fit', {
 			hole: { callout: 'Ø25 H7' },

@@ -11,12 +11,13 @@ export const CAUTION =
 const STANDARDS = GOVERNING_STANDARDS;
 const SHORT: Record<string, GoverningStandard> = { asme: 'asme-y14.5-2018', iso: 'iso-8015' };
 
-export const standard = z
+const standardName = z
 	.enum([...STANDARDS, 'asme', 'iso'], {
 		error: `standard must be one of ${STANDARDS.join(', ')} (or asme, iso)`
 	})
-	.default('unstated')
 	.transform((s): GoverningStandard => SHORT[s] ?? (s as GoverningStandard));
+
+export const standard = standardName.default('unstated');
 
 const unit = z.enum(UNITS, { error: 'units must be mm or in' });
 export const units = unit.default('mm');
@@ -71,9 +72,13 @@ export const sizeInput = z.object({
 	notes: z.string().max(2000).optional()
 });
 
+// A member on another drawing than the fit's gives that drawing's units, standard and
+// general tolerance; what it leaves out comes from the fit.
 const member = z.object({
 	callout,
 	units: unit.optional(),
+	standard: standardName.optional(),
+	generalTolerance: generalTolerance.optional(),
 	geometric: geometric.optional(),
 	overrides,
 	notes: z.string().max(2000).optional()
@@ -95,6 +100,9 @@ export const fitInput = z
 		standard,
 		generalTolerance: generalTolerance.optional(),
 		intent: z.enum(FIT_INTENTS).optional(),
+		// Both members located by the same datum features: orientation and location controls
+		// then enter the boundary check too.
+		sharedDatumFrame: z.boolean().default(false),
 		requiredMinClearance: decimal.optional(),
 		requiredMaxClearance: decimal.optional(),
 		temperature: z

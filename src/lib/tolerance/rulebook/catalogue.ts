@@ -256,7 +256,7 @@ const RULES: RuleExplanation[] = [
 		summary:
 			'A fit that fails at the virtual conditions or boundaries once geometric tolerances apply.',
 		checks:
-			'Where geometric tolerances make boundaries (virtual condition at MMC, inner and outer boundaries regardless of size), the clearance that matters for assembly is between those boundaries, not between the sizes. The rule fires when the sizes alone would assemble but the boundaries do not.',
+			'Where geometric tolerances make boundaries (virtual condition at MMC, inner and outer boundaries regardless of size), the clearance that matters for assembly is between those boundaries, not between the sizes. The rule fires when the sizes alone would assemble but the boundaries do not. For one pin in one hole only the controls that bound the mating envelope count: form controls such as straightness of the derived median line or flatness of the derived median plane. Orientation and location controls (perpendicularity to A, position) relate a feature to its datums, not to its mate, and count only when the fit says both members are located by the same datum features.',
 		why: 'A straightness or position at MMC that exceeds the allowance lets a part at the limits of its tolerances sit outside the other part’s envelope.',
 		example:
 			'Journal Ø12 g6 (11.983–11.994) with straightness of the median line Ø0.02 Ⓜ: virtual condition 11.994 + 0.020 = 12.014, against the bushing’s MMC 12.000 gives −0.014 — interference in a running fit.',
@@ -297,7 +297,7 @@ const RULES: RuleExplanation[] = [
 		summary:
 			'A fastener pattern whose position tolerances exceed H − F (or the projected-zone budget).',
 		checks:
-			'Floating fasteners (bolts through clearance holes in both parts): each part’s position tolerance T must not exceed H − F. Fixed fasteners (studs, press-fit pins): T₁ + T₂ must not exceed H − F; where the fixed part’s tolerance is not projected, the hole must be at least F + T₁ + T₂(1 + 2P/D).',
+			'Floating fasteners (bolts through clearance holes in both parts): each part’s position tolerance T must not exceed H − F. Fixed fasteners (studs, press-fit pins): T₁ + T₂ must not exceed H − F; where the fixed part’s tolerance is not projected, the hole must be at least F + T₁ + T₂(1 + 2P/D). T₂ is the position tolerance of the hole that holds the fastener, given as a number or read from that hole’s feature. The formulas are those of a position at MMC, whose boundary is the virtual condition MMC − t; regardless of feature size the inner boundary is the same MMC − t (no bonus); at LMC it is MMC − t − T, so the clearance hole’s share is t + T (T its size tolerance). A clearance hole smaller than the fastener at MMC (H − F below zero) fails whatever the position tolerances.',
 		why: 'The formula is the worst case: two parts at the limits of position and size still let every fastener through.',
 		example:
 			'M6 bolts (F = 6.0) through Ø6.6 ±0.2 holes: H = 6.4, so H − F = 0.4. A position Ø0.5 Ⓜ would not assemble at worst case.',
@@ -311,7 +311,7 @@ const RULES: RuleExplanation[] = [
 		severity: 'minor',
 		summary: 'A fit member with no orientation or location control.',
 		checks:
-			'A member of a fit needs a control that relates it to the rest of the part — position, perpendicularity, run-out and the like — or a general geometric tolerance that does (ISO 2768-2 class H, K or L). A datum feature itself is exempt.',
+			'A member of a fit needs a control that relates it to the rest of the part — position, perpendicularity, run-out and the like — or a general geometric tolerance that does (ISO 2768-2 class H, K or L). A datum feature itself is exempt, and so is a member bought out to a standard (a dowel pin, a bushing), which its standard and its own fit locate.',
 		why: 'The fit computed from sizes assumes both members on a common axis; without a location control their axes may be anywhere the ± dimensions allow.',
 		example:
 			'A pivot hole located only by a 1.250 ±.005 dimension with no perpendicularity to the tab face.',
