@@ -63,6 +63,48 @@ describe('/calc', () => {
 		await page.close();
 	});
 
+	it('shows the fastener budget by modifier: Ø0.5 at LMC on Ø6.6 +0.2/0 for M6 is over', async () => {
+		const { page } = await open(1280);
+		const budget = page.getByRole('region', { name: 'Fastener budget' });
+		await budget.getByLabel('Clearance hole').fill('Ø6.6 +0.2/0');
+		await budget.getByLabel('Fastener', { exact: true }).fill('M6');
+		await budget.getByLabel('Position tolerance Ø').fill('0.5');
+		await budget.getByLabel('Modifier').selectOption('mmc');
+		// At MMC the VC is the boundary: 0.5 ≤ H − F = 0.6 (ASME Y14.5 Appendix B).
+		await expect.poll(() => page.getByTestId('fastener-available').textContent()).toBe('0.6');
+		expect(await page.getByTestId('fastener-verdict').textContent()).toContain('Within the budget');
+		// At LMC the inner boundary is MMC − t − T: 0.5 + 0.2 = 0.7 > 0.6 (recalled).
+		await budget.getByLabel('Modifier').selectOption('lmc');
+		await expect
+			.poll(() => page.getByTestId('fastener-verdict').textContent())
+			.toContain('Over the budget');
+		expect(await page.getByTestId('fastener-used').textContent()).toContain('0.7');
+		expect(await page.getByTestId('fastener-used').textContent()).toContain('MMC − t − T');
+		await screenshot(page, 'calc-fastener');
+		await page.close();
+	});
+
+	it('judges a fit at its operating temperature: Ø18 H7/p6, aluminium on bronze at 80 °C', async () => {
+		const { page } = await open(1280);
+		await page.getByLabel('Hole callout').fill('Ø18 H7');
+		await page.getByLabel('Shaft callout').fill('Ø18 p6');
+		await page.getByLabel('The fit is meant as').selectOption('interference');
+		await page.getByLabel('Hole α (10⁻⁶/K)').fill('23.6');
+		await page.getByLabel('Shaft α (10⁻⁶/K)').fill('17.5');
+		await page.getByLabel('Operating °C').fill('80');
+		// Max clearance 0 at 20 °C, +0.0066 at 80 °C (by hand; see tests/unit/fit.test.ts).
+		await expect
+			.poll(() => page.getByTestId('max-clearance-at-temperature').textContent())
+			.toBe('0.0066');
+		expect(await page.getByTestId('max-clearance').textContent()).toBe('0.000');
+		expect(await page.getByTestId('fit-at-temperature').textContent()).toContain('transition fit');
+		const results = page.getByRole('region', { name: 'Fit results' });
+		expect(await results.textContent()).toContain('Does not meet the intent');
+		expect(await results.textContent()).toContain('at 80 °C: interference fit');
+		await screenshot(page, 'calc-temperature');
+		await page.close();
+	});
+
 	it('works on a phone-width screen', async () => {
 		const { page } = await open(390);
 		await screenshot(page, 'calc-390');
