@@ -568,6 +568,23 @@ describe('fits and fasteners as a checker judges them', () => {
 		expect(results.filter((r) => r.subject === 'fit')).toEqual([]);
 	});
 
+	it('FIT-03 at the operating temperature: Ø18 H7/p6, aluminium on bronze at 80 °C (see fit.test.ts)', () => {
+		const bore = feature('Ø18 H7 Ⓔ', true, { datumFeature: 'C' });
+		const bush = feature('Ø18 p6 Ⓔ', false, { kind: 'pin', boughtOut: true });
+		const warm = fit(bore, bush, {
+			intent: 'interference',
+			temperature: { operating: '80', holeCoefficient: '23.6', shaftCoefficient: '17.5' }
+		});
+		const r = one(run(iso, [bore, bush], [warm]), 'FIT-03');
+		expect([r.cause, r.severity]).toEqual(['clearance-at-temperature', 'major']);
+		expect(r.line).toBe(
+			'maximum clearance 0.0066 at 80 °C (hole α 23.6, pin α 17.5 × 10⁻⁶/K, from 20 °C), required ≤ 0 for an interference fit: a transition fit'
+		);
+		// At 20 °C alone the same fit is interference: no finding.
+		const cold = run(iso, [bore, bush], [fit(bore, bush, { intent: 'interference' })]);
+		expect(cold.filter((x) => x.rule === 'FIT-03')).toEqual([]);
+	});
+
 	it('FIT-06 does not ask a bought-out member for a location control', () => {
 		const hole = feature('Ø12 H7 Ⓔ', true, {
 			controls: [control('position', '0.02', 'mmc', { datums: ['A', 'B'] })]

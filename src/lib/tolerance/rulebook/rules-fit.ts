@@ -2,7 +2,7 @@
  * FIT: fits (PRODUCT.md §5). FIT-01…05 are judged on one fit, from ../fit.ts's evaluation of
  * the pair; FIT-06 on each feature that is a fit member.
  */
-import { ZERO, parseDecimal, sub, type Length, type Units } from '../decimal';
+import { ZERO, formatLength, parseDecimal, sub, type Length, type Units } from '../decimal';
 import type { FeatureValues } from '../feature';
 import {
 	fitValues,
@@ -98,6 +98,7 @@ export function evaluateFitFor(
 		generalTolerance: drawing.generalTolerance,
 		intent: fit.intent,
 		sharedDatumFrame: fit.sharedDatumFrame,
+		temperature: fit.temperature ?? undefined,
 		requiredMinClearance: fit.requiredMinClearance ?? undefined,
 		requiredMaxClearance: fit.requiredMaxClearance ?? undefined
 	});
@@ -252,6 +253,44 @@ function budgetRule(w: FitWords, out: Finding[]): void {
 	});
 }
 
+/** FIT-01 / FIT-03 at the operating temperature: the fit holds at 20 °C and fails there. */
+function temperatureRules(w: FitWords, sizeFails: boolean, out: Finding[]): void {
+	const { fit, r, req, intent } = w;
+	const t = r.temperature;
+	const input = fit.temperature;
+	if (!t || !input) return;
+	// Expansion is no exact size: shown to the callouts' places plus one.
+	const f = { show: (v: Length) => formatLength(v, r.units, r.hole.places + 1) };
+	const at = `at ${t.operating} °C (hole α ${input.holeCoefficient}, ${w.shaftWord} α ${input.shaftCoefficient} × 10⁻⁶/K, from 20 °C)`;
+	if (req && !sizeFails && fails(t.minClearance, req))
+		out.push({
+			rule: 'FIT-01',
+			cause: 'min-clearance-at-temperature',
+			message: `At ${t.operating} °C the minimum clearance is below what ${intent} needs.`,
+			values: [
+				value('operating temperature', null, `${t.operating} °C`),
+				value('minimum clearance', t.minClearance, f.show(t.minClearance)),
+				value('required', null, req.text)
+			],
+			line: `minimum clearance ${signed(f.show(t.minClearance))} ${at}, required ${req.text} for ${intent}`,
+			fix: 'Open the allowance, or choose materials whose expansion keeps the clearance.'
+		});
+	const loose = r.maxClearance !== null && r.maxClearance > 0;
+	if (fit.intent === 'interference' && !loose && t.maxClearance > 0)
+		out.push({
+			rule: 'FIT-03',
+			cause: 'clearance-at-temperature',
+			message: `Interference at 20 °C, but at ${t.operating} °C the limits allow clearance (${t.classification} fit).`,
+			values: [
+				value('operating temperature', null, `${t.operating} °C`),
+				value('maximum clearance', t.maxClearance, f.show(t.maxClearance)),
+				value('classification', null, t.classification)
+			],
+			line: `maximum clearance ${signed(f.show(t.maxClearance))} ${at}, required ≤ 0 for an interference fit: a ${t.classification} fit`,
+			fix: 'Increase the interference, or choose materials that expand alike.'
+		});
+}
+
 /** FIT-01…05 on one fit. */
 export function fitRules(
 	fit: RulebookFit,
@@ -273,6 +312,7 @@ export function fitRules(
 	if (!sizeFails) boundaryRule(w, out);
 	looseEndRules(w, out);
 	budgetRule(w, out);
+	temperatureRules(w, sizeFails, out);
 }
 
 const LOCATING: readonly Characteristic[] = [

@@ -5,7 +5,7 @@ import type {
 	GeometricControl,
 	GoverningStandard
 } from '../feature';
-import type { FitIntent } from '../fit';
+import type { FitIntent, TemperatureInput } from '../fit';
 import type { Grade } from '../iso286';
 import type { RulebookIndex } from './evaluate';
 
@@ -93,6 +93,8 @@ export interface RulebookFit {
 	fixedHoleFeatureId?: string | null;
 	/** Both members are located by the same datum features (see ../mating.ts). Default false. */
 	sharedDatumFrame?: boolean;
+	/** The operating temperature and the members' expansion coefficients, when it matters. */
+	temperature?: TemperatureInput | null;
 	requiredMinClearance?: string | null;
 	requiredMaxClearance?: string | null;
 }
