@@ -492,12 +492,19 @@ describe('holes', () => {
 		check(sizes.map((s, i) => [s, 'P7', ...p7[i]] as Cell));
 	});
 
+	test('K above IT8 is not defined over 3 mm (ISO 286-2:2010, table 3 shows no value)', () => {
+		const k9 = isoLimits(parseDecimal('25', 'mm')!.value, 'K9');
+		expect(k9.ok).toBe(false);
+		if (!k9.ok) expect(k9.reason).toMatch(/not defined: K above IT8/);
+		expect(isoLimits(parseDecimal('3.5', 'mm')!.value, 'K10').ok).toBe(false);
+	});
+
 	test('Δ added only up to IT8 (K, M, N) and IT7 (P–ZC)', () => {
 		// ISO 286-1:2010, table 3 and 4.3.2.5
 		check([
 			['25', 'K6', 2, -11],
 			['25', 'K8', 10, -23],
-			['25', 'K9', 0, -52],
+			['3', 'K9', 0, -25],
 			['25', 'M6', -4, -17],
 			['25', 'M8', 4, -29],
 			['25', 'M9', -8, -60],

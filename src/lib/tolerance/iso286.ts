@@ -354,7 +354,11 @@ function holeFundamental(letter: string, size: Length, grade: Grade): Deviation 
 				);
 			return { value: add(neg(ei), d) };
 		}
-		if (letter === 'K') return { value: ZERO };
+		// ISO 286-2 tabulates K above IT8 only up to 3 mm (ES = 0); larger sizes show no value.
+		if (letter === 'K')
+			return size <= 3 * PER_MM
+				? { value: ZERO }
+				: notDefined('K above IT8 is tabulated for sizes up to 3 mm only');
 		if (letter === 'M') return { value: neg(ei) };
 		if (size <= PER_MM) return notDefined('N above IT8 is not used for sizes up to 1 mm');
 		return { value: size <= 3 * PER_MM ? toLength(-4 * PER_MICROMETRE) : ZERO };
