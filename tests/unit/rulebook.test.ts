@@ -176,6 +176,24 @@ describe('LIM-04 ISO 286 code in conflict', () => {
 		expect(run(iso, [feature('Ø25 H7 (25.000/25.021)', true)])).toEqual([]);
 		expect(run(iso, [feature('Ø25 +0.021/0 (H7)', true)])).toEqual([]);
 	});
+	it('js/JS: exact ±IT/2 and the rounded limits both agree (ISO 286-1:2010 4.3.2.4, recalled)', () => {
+		// IT7 at 25 mm is 21 µm (ISO 286-1 table 1): exact ±0.0105, rounded ±0.010.
+		expect(run(iso, [feature('Ø25 JS7 (24.9895/25.0105)', true)])).toEqual([]);
+		expect(run(iso, [feature('Ø25 JS7 (24.990/25.010)', true)])).toEqual([]);
+		expect(one(run(iso, [feature('Ø25 JS7 (24.985/25.015)', true)]), 'LIM-04').cause).toBe(
+			'disagrees'
+		);
+	});
+	it('limits rounded outward disagree; inward-rounded ones agree (g6 at 12 mm: 11.983/11.994)', () => {
+		// ISO 286-2:2010 table: g6 over 10 up to 18 mm is −0.006/−0.017.
+		const out = one(run(iso, [feature('Ø12 g6 (11.98/11.99)', false)]), 'LIM-04');
+		expect(out.cause).toBe('disagrees');
+		// H7 at 25 mm is 25.000/25.021 (ISO 286-2): 25.00/25.02 is inward, 25.00/25.03 outward.
+		expect(run(iso, [feature('Ø25 H7 (25.00/25.02)', true)])).toEqual([]);
+		expect(one(run(iso, [feature('Ø25 H7 (25.00/25.03)', true)]), 'LIM-04').cause).toBe(
+			'disagrees'
+		);
+	});
 	it('a code not defined at the size (a is not used up to 1 mm, ISO 286-1)', () => {
 		const r = one(run(iso, [feature('Ø1 a11', false)]), 'LIM-04');
 		expect(r.cause).toBe('undefined');

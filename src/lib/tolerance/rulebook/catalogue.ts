@@ -80,7 +80,7 @@ const RULES: RuleExplanation[] = [
 		summary:
 			'An ISO 286 code whose stated limits disagree with it, that is undefined at that size, or whose letter case contradicts hole/shaft.',
 		checks:
-			'Where a callout gives an ISO 286 tolerance class, the class must exist at that nominal size, its letter case must match the feature (capital for a hole, small for a shaft), and limits written beside it must be the limits the class gives.',
+			'Where a callout gives an ISO 286 tolerance class, the class must exist at that nominal size, its letter case must match the feature (capital for a hole, small for a shaft), and limits written beside it must be the limits the class gives, exactly or rounded inward to the places written (the lower limit up, the upper down), never outward. For js and JS the exact ±IT/2 and the rounded values ISO 286-1 allows for odd IT values both agree.',
 		why: 'Two statements of the same tolerance that disagree leave the shop to choose; a capital letter on a shaft gives a completely different zone.',
 		example:
 			'Ø25 H7 (25.000/25.025): ISO 286-2 gives H7 at 25 mm as 0/+0.021, so the written upper limit 25.025 disagrees with the class by 0.004.',

@@ -3,7 +3,7 @@
  */
 import type { CalloutSpec, Tolerance, ToleranceClass } from '../callout-types';
 import { isAsme } from '../drawing-context';
-import { add, parseDecimal, roundToPlaces, sub, type Length } from '../decimal';
+import { add, mulDiv, parseDecimal, roundToPlaces, sub, type Length } from '../decimal';
 import { isoLimits, standardTolerance } from '../iso286';
 import { LengthFormat, show, signed, value, type FeatureContext } from './context';
 import type { Finding } from './emit';
@@ -76,10 +76,30 @@ function statedLimits(tolerance: Tolerance | null, nominal: Length) {
 	}
 }
 
-function agrees(stated: Length, iso: Length, places: number, units: 'mm' | 'in', up: boolean) {
-	if (stated === iso) return true;
-	if (stated === roundToPlaces(iso, units, places, up ? 'up' : 'down')) return true;
-	return stated === roundToPlaces(iso, units, places, 'nearest');
+/**
+ * A stated limit agrees with the class when it is the class's limit exactly, or rounded inward
+ * to the places written (a lower limit up, an upper limit down): the stated zone never reaches
+ * outside the class's. Rounded outward (Ø12 g6 (11.98/11.99): 11.98 is below 11.983) it does not.
+ */
+function agrees(stated: Length, iso: Length, places: number, units: 'mm' | 'in', lower: boolean) {
+	return stated === iso || stated === roundToPlaces(iso, units, places, lower ? 'up' : 'down');
+}
+
+/** Stated limits agree with the class's, or for js/JS with the exact ±IT/2 (ISO 286-1 rounds odd IT). */
+function statedAgree(
+	stated: NonNullable<ReturnType<typeof statedLimits>>,
+	iso: { lower: Length; upper: Length; it: Length },
+	nominal: Length,
+	js: boolean,
+	units: 'mm' | 'in'
+): boolean {
+	const pair = (lower: Length, upper: Length) =>
+		agrees(stated.lower, lower, stated.lowerPlaces, units, true) &&
+		agrees(stated.upper, upper, stated.upperPlaces, units, false);
+	if (pair(iso.lower, iso.upper)) return true;
+	if (!js) return false;
+	const half = mulDiv(iso.it, 1, 2, 'nearest');
+	return pair(sub(nominal, half), add(nominal, half));
 }
 
 /** The ISO 286 class that applies to the feature, from its class or its fit designation. */
@@ -125,12 +145,8 @@ function classRules(ctx: FeatureContext, out: Finding[], f: LengthFormat): void 
 	}
 	const stated = statedLimits(spec.tolerance, nominal);
 	const units = f.units;
-	if (
-		!stated ||
-		(agrees(stated.lower, iso.lower, stated.lowerPlaces, units, true) &&
-			agrees(stated.upper, iso.upper, stated.upperPlaces, units, false))
-	)
-		return;
+	const js = cls.deviation === 'js' || cls.deviation === 'JS';
+	if (!stated || statedAgree(stated, iso, nominal, js, units)) return;
 	const isoText = `${show(iso.lower, units, 3)}–${show(iso.upper, units, 3)}`;
 	out.push({
 		rule: 'LIM-04',
