@@ -16,6 +16,7 @@ import { formatCallout } from '$lib/tolerance/callout-format';
 import { evaluateFeature, type FeatureEvaluation } from '$lib/tolerance/feature';
 import { evaluateFit, type FitEvaluation, type FitMemberInput } from '$lib/tolerance/fit';
 import { adviseFit } from '$lib/tolerance/fit-advisor';
+import { sizeFindings, type SizeFinding } from '$lib/tolerance/rulebook';
 
 export function invalid(message: string, extra: Record<string, unknown> = {}): never {
 	const body = { message, code: 'invalid', ...extra };
@@ -36,7 +37,8 @@ export async function readJson(request: Request): Promise<unknown> {
 	}
 }
 
-export function sizeJson(f: FeatureEvaluation) {
+/** The size and what the rulebook says about it: `findings` is empty when it is clean. */
+export function sizeJson(f: FeatureEvaluation, findings: SizeFinding[] = []) {
 	const controls = f.controls.map((c) => ({
 		characteristic: c.control.characteristic,
 		value: c.text.value,
@@ -93,11 +95,20 @@ export function sizeJson(f: FeatureEvaluation) {
 				}
 			: {}),
 		geometric: controls,
-		...(f.actual ? { actual: { size: f.text.actual, withinLimits: f.actual.withinLimits } } : {})
+		...(f.actual ? { actual: { size: f.text.actual, withinLimits: f.actual.withinLimits } } : {}),
+		findings: findings.map(({ rule, severity, message, line }) => ({
+			rule,
+			severity,
+			message,
+			line
+		}))
 	};
 }
 
-export function fitJson(fit: FitEvaluation) {
+export function fitJson(
+	fit: FitEvaluation,
+	findings: { hole: SizeFinding[]; shaft: SizeFinding[] } = { hole: [], shaft: [] }
+) {
 	const boundaries = fit.hole.controls.length > 0 || fit.shaft.controls.length > 0;
 	return {
 		...(fit.shaftLimits.converted
@@ -108,8 +119,8 @@ export function fitJson(fit: FitEvaluation) {
 			: {}),
 		units: fit.units,
 		intent: fit.intent,
-		hole: sizeJson(fit.hole),
-		[fit.memberKind]: sizeJson(fit.shaft),
+		hole: sizeJson(fit.hole, findings.hole),
+		[fit.memberKind]: sizeJson(fit.shaft, findings.shaft),
 		minClearance: fit.text.minClearance,
 		maxClearance: fit.text.maxClearance,
 		classification: fit.classification,
@@ -173,7 +184,21 @@ export function calcSize(data: unknown, from: 'query' | 'body') {
 		actual: input.actual
 	});
 	if (!result.ok) failed(result.message, result.field, result.position);
-	return { ...sizeJson(result), standard: input.standard, caution: CAUTION };
+	const findings = sizeFindings(
+		{
+			callout: input.callout,
+			internal: result.internal,
+			controls: input.geometric,
+			overrides: input.overrides,
+			notes: input.notes
+		},
+		{
+			units: input.units,
+			standard: input.standard,
+			generalTolerance: input.generalTolerance ?? null
+		}
+	);
+	return { ...sizeJson(result, findings), standard: input.standard, caution: CAUTION };
 }
 
 type FitBody = z.output<typeof fitInput>;
@@ -198,6 +223,19 @@ function memberInput(m: FitBody['hole'], fit: FitBody): FitMemberInput {
 	};
 }
 
+/** The rulebook on one member, under its own drawing's context or the fit's. */
+function memberFindings(m: FitBody['hole'], internal: boolean, fit: FitBody): SizeFinding[] {
+	return sizeFindings(
+		{ callout: m.callout, internal, controls: m.geometric, overrides: m.overrides, notes: m.notes },
+		{
+			units: m.units ?? fit.units,
+			standard: m.standard ?? fit.standard,
+			generalTolerance:
+				(m.generalTolerance !== undefined ? m.generalTolerance : fit.generalTolerance) ?? null
+		}
+	);
+}
+
 export function calcFit(data: unknown) {
 	const input = parseOrFail(fitInput, data);
 	const result = evaluateFit({
@@ -217,7 +255,11 @@ export function calcFit(data: unknown) {
 		const where = result.member === 'fit' ? result.field : `${result.member}.${result.field}`;
 		failed(result.message, where, result.position);
 	}
-	return { ...fitJson(result), standard: input.standard };
+	const findings = {
+		hole: memberFindings(input.hole, true, input),
+		shaft: input.shaft ? memberFindings(input.shaft, false, input) : []
+	};
+	return { ...fitJson(result, findings), standard: input.standard };
 }
 
 export function calcAdvise(data: unknown) {

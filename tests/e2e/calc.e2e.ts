@@ -105,6 +105,25 @@ describe('/calc', () => {
 		await page.close();
 	});
 
+	it('lists the rulebook findings of each size and the gauge note beside the go gauge', async () => {
+		const { page } = await open(1280);
+		await page.getByLabel('Hole callout').fill('Ø25 H7 (25.000-25.030)');
+		// H7 at 25 mm is 25.000/25.021 (ISO 286-2): the stated 25.030 disagrees.
+		await expect.poll(() => page.getByTestId('hole-findings').textContent()).toContain('LIM-04');
+		expect(await page.getByTestId('hole-findings').textContent()).toContain(
+			'H7 at 25.000 gives 25.000–25.021'
+		);
+		expect(await page.getByTestId('shaft-findings').textContent()).toContain('nothing to report');
+		// ISO 8015 without Ⓔ: the go gauge checks more than the drawing asks.
+		expect(await page.getByTestId('hole-gauge-note').textContent()).toContain(
+			'full-form go gauge checks more'
+		);
+		expect(await page.textContent('main')).toContain('Gauge sizes are nominal');
+		await page.getByLabel('Hole callout').fill('Ø25 H7 Ⓔ');
+		await expect.poll(() => page.getByTestId('hole-gauge-note').count()).toBe(0);
+		await page.close();
+	});
+
 	it('works on a phone-width screen', async () => {
 		const { page } = await open(390);
 		await screenshot(page, 'calc-390');

@@ -47,6 +47,25 @@ describe('GET /api/v1/calc/size', () => {
 		expect(r.body.caution).toMatch(/advisory/);
 	});
 
+	test('findings: stated limits that disagree with the code beside them are said (ISO 286-2)', async () => {
+		const clean = await getSize(`callout=${encodeURIComponent('Ø25 H7')}&units=mm&standard=iso`);
+		expect(clean.body.findings).toEqual([]);
+		// H7 at 25 mm is 25.000/25.021; 25.030 disagrees.
+		const r = await getSize(
+			`callout=${encodeURIComponent('Ø25 H7 (25.000-25.030)')}&units=mm&standard=iso`
+		);
+		expect(r.status).toBe(200);
+		expect(r.body.upper).toBe('25.030');
+		expect(r.body.findings).toEqual([
+			{
+				rule: 'LIM-04',
+				severity: 'major',
+				message: 'The limits written beside H7 are not the limits H7 gives.',
+				line: 'stated 25.000–25.030, H7 at 25.000 gives 25.000–25.021 (ISO 286-2)'
+			}
+		]);
+	});
+
 	test('plain inch limits need feature and keep the places', async () => {
 		const r = await getSize(`callout=.8750-.8745&units=in&feature=external&standard=asme`);
 		expect(r.body).toMatchObject({
@@ -322,6 +341,17 @@ describe('POST /api/v1/calc/fit', () => {
 			hole: { envelope: { applies: false } },
 			shaft: { units: 'in', envelope: { applies: true } }
 		});
+	});
+
+	test('each member carries its findings', async () => {
+		const r = await call(fit.POST as Handler, '/api/v1/calc/fit', {
+			hole: { callout: 'Ø25 H7 (25.000-25.030)' },
+			shaft: { callout: 'Ø25 g6' },
+			units: 'mm',
+			standard: 'iso'
+		});
+		expect(r.body.hole.findings.map((f: { rule: string }) => f.rule)).toEqual(['LIM-04']);
+		expect(r.body.shaft.findings).toEqual([]);
 	});
 
 	test('a bad shaft callout names the member and the position', async () => {

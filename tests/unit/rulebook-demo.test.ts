@@ -41,8 +41,14 @@ describe('the demo scenario', () => {
 			'DOC-02|drawing|withdrawn-iso-2768-2 minor',
 			// Deliberate: KF-1001's bushing bore Ø18 H7 has no Ⓔ; the bushing is pressed into it.
 			'ENV-02|feature:kf1001-bore|unbounded major',
+			// Consequences: these fit members carry no position or orientation control, and the
+			// ISO 2768-mK note locates nothing (ISO 2768-2 has no position tolerance).
+			'FIT-06|feature:kf1001-dowel|unlocated minor',
+			'FIT-06|feature:kf1002-journal|unlocated minor',
 			// Deliberate: KF-1003's bore Ø12 H7 has no Ⓔ; the journal runs in it.
 			'ENV-02|feature:kf1003-bore|unbounded major',
+			'FIT-06|feature:kf1003-bore|unlocated minor',
+			'FIT-06|feature:kf1003-outside|unlocated minor',
 			// Deliberate: journal VC 11.994 + 0.020 = 12.014 against the bore's 12.000.
 			'FIT-02|fit:fit-journal|boundary critical'
 		]);
@@ -54,7 +60,9 @@ describe('the demo scenario', () => {
 		// the dowels sit in their H7 holes (H7/m6 transition), and the cover bolts' Ø0.2 Ⓜ fits
 		// H − F = 6.4 − 6.0.
 		expect(results.filter((r) => r.fitId === 'fit-bushing' && r.subject === 'fit')).toEqual([]);
-		expect(results.filter((r) => r.fitId === 'fit-dowel')).toEqual([]);
+		expect(results.filter((r) => r.fitId === 'fit-dowel').map((r) => r.key)).toEqual([
+			'FIT-06|feature:kf1001-dowel|unlocated'
+		]);
 		expect(results.filter((r) => r.fitId === 'fit-cover-bolt')).toEqual([]);
 	});
 

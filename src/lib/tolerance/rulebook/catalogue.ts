@@ -38,7 +38,7 @@ const RULES: RuleExplanation[] = [
 		severity: 'critical',
 		summary: 'A feature of size has no limits, and no general tolerance covers its size.',
 		checks:
-			'Every feature of size must end up with two limits: written on the callout, from an ISO 286 class, or from the general tolerance the drawing states. The rule fires when none of these gives limits — a size given only as a reference or basic dimension, a size outside the range the general tolerance covers (ISO 2768-1 starts at 0.5 mm), a number of decimal places the title block gives no tolerance for, or a callout that cannot be read.',
+			'Every feature of size must end up with two limits: written on the callout, from an ISO 286 class, or from the general tolerance the drawing states. The rule fires when none of these gives limits — a size given only as a reference dimension, or as a basic dimension that no profile tolerance controls, a size outside the range the general tolerance covers (ISO 2768-1 starts at 0.5 mm), a number of decimal places the title block gives no tolerance for, or a callout that cannot be read.',
 		why: 'A size without limits cannot be accepted or rejected. The supplier will pick a tolerance, the inspector another, and the mating part was designed against a third.',
 		example:
 			'A seal groove width written as (2.4) — a reference dimension — on an ISO 2768-m drawing. Reference dimensions carry no tolerance and the general tolerance does not apply to them, so the groove has no limits at all.',
@@ -50,6 +50,15 @@ const RULES: RuleExplanation[] = [
 		code: 'LIM-02',
 		title: 'Limits inverted or of zero width',
 		severity: 'critical',
+		severities: [
+			{ cause: 'zero-width', severity: 'critical', when: 'the limits leave no zone' },
+			{ cause: 'unreadable', severity: 'critical', when: 'the limits cannot be read' },
+			{
+				cause: 'inverted',
+				severity: 'minor',
+				when: 'deviations written the wrong way round that still give a valid zone'
+			}
+		],
 		summary: 'The upper and lower limits are the wrong way round or equal.',
 		checks:
 			'The stated tolerance leaves no zone: both limits equal, a ± of zero, or deviations written so that the one in the upper place is below the one in the lower place (25 −0.01/+0.02).',
@@ -93,7 +102,7 @@ const RULES: RuleExplanation[] = [
 		severity: 'critical',
 		severities: [
 			{ cause: 'mmc-side', severity: 'critical', when: 'the MMC side is missing' },
-			{ cause: 'lmc-side', severity: 'minor', when: 'the LMC side is missing' }
+			{ cause: 'lmc-side', severity: 'major', when: 'the LMC side is missing' }
 		],
 		summary: 'A MIN or MAX size on a feature that takes part in a fit.',
 		checks:
@@ -127,7 +136,7 @@ const RULES: RuleExplanation[] = [
 			'Under the envelope (ASME Rule #1, or Ⓔ on an ISO drawing) the size limits already hold form within the size tolerance. A circularity, cylindricity, surface straightness or flatness on the same feature only adds something when it is smaller than the size tolerance. Derived median line or plane controls, free state, Ⓘ, stock, and ISO features without Ⓔ are not checked: there the form control is the only limit on form.',
 		why: 'A form tolerance that the size limits already enforce is noise on the drawing, and often a sign that the designer expected it to allow more form error than the envelope lets through — which it does not.',
 		example:
-			'Tab thickness .250 ±.005 (size tolerance .010) with a flatness of .015 on an ASME drawing. Rule #1 already limits flatness to .010 at MMC, so the .015 flatness never governs.',
+			'Tab thickness .250 ±.005 (size tolerance .010) with a flatness of .015 on an ASME drawing. Under Rule #1 the form must be perfect at MMC, and the flatness error may grow only as the tab departs from MMC, reaching the size tolerance .010 at LMC, so the .015 flatness never governs.',
 		fix: 'Make the form tolerance smaller than the size tolerance, remove it, or lift the envelope where more form error is acceptable.',
 		clause:
 			'ASME Y14.5-2018 §5.8 Rule #1 (recalled), -2009 §2.7.1 (recalled); ISO 14405-1:2016 envelope requirement (recalled)'
@@ -203,7 +212,7 @@ const RULES: RuleExplanation[] = [
 		summary:
 			'Ⓜ or Ⓛ on circularity, cylindricity, surface straightness or flatness, run-out, profile, or (2009) concentricity/symmetry.',
 		checks:
-			'These characteristics control surface elements, not a derived axis or centre plane of a feature of size, so MMC and LMC cannot apply to their tolerance value.',
+			'Circularity, cylindricity, surface straightness and flatness, run-out and profile control surface elements, not a derived axis or centre plane of a feature of size, so MMC and LMC cannot apply to their tolerance value. Concentricity and symmetry of ASME Y14.5-2009 control the median points of a feature and apply regardless of feature size only.',
 		why: 'The drawing asks for something that cannot be inspected as written; the shop will either ignore the modifier or query it.',
 		example:
 			'Cylindricity 0.01 Ⓜ on Ø12 g6: cylindricity is a surface control; the Ⓜ has no meaning.',
@@ -230,7 +239,7 @@ const RULES: RuleExplanation[] = [
 		severity: 'major',
 		summary: 'A datum letter referenced but never defined, or I, O or Q used as a datum letter.',
 		checks:
-			'Every datum letter in a feature control frame must be defined by a datum feature symbol on the drawing. The letters I, O and Q are not used because they are read as digits.',
+			'Every datum letter in a feature control frame must be defined by a datum feature symbol on the drawing. On ASME Y14.5 drawings the letters I, O and Q are not used because they are read as digits; ISO 5459 has no such ban.',
 		why: 'A tolerance referencing an undefined datum has no reference frame; the inspector cannot set the part up.',
 		example: 'Position Ø0.2 Ⓜ A B C on a drawing where only A and B are defined.',
 		fix: 'Define the datum on the drawing, or reference one that is.',
@@ -311,7 +320,7 @@ const RULES: RuleExplanation[] = [
 		severity: 'minor',
 		summary: 'A fit member with no orientation or location control.',
 		checks:
-			'A member of a fit needs a control that relates it to the rest of the part — position, perpendicularity, run-out and the like — or a general geometric tolerance that does (ISO 2768-2 class H, K or L). A datum feature itself is exempt, and so is a member bought out to a standard (a dowel pin, a bushing), which its standard and its own fit locate.',
+			'A member of a fit needs a control that relates it to the rest of the part — position, perpendicularity, run-out and the like. A general geometric tolerance does not do it: an ISO 2768-2 class (H, K or L) gives general straightness, perpendicularity, symmetry and run-out but no position, so it locates nothing. A datum feature itself is exempt, and so is a member bought out to a standard (a dowel pin, a bushing), which its standard and its own fit locate.',
 		why: 'The fit computed from sizes assumes both members on a common axis; without a location control their axes may be anywhere the ± dimensions allow.',
 		example:
 			'A pivot hole located only by a 1.250 ±.005 dimension with no perpendicularity to the tab face.',

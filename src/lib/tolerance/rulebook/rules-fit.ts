@@ -20,7 +20,6 @@ import {
 	value,
 	type FeatureContext
 } from './context';
-import { isAsme } from '../drawing-context';
 import type { Characteristic } from '../feature';
 import { fitList, type FeatureEnv } from './feature-env';
 import type { Finding } from './emit';
@@ -334,12 +333,11 @@ export function memberLocationRule(ctx: FeatureContext, env: FeatureEnv, out: Fi
 	const { feature } = ctx;
 	// A part bought to a standard is located by the standard and its own fit, not by this drawing.
 	if (feature.boughtOut) return;
-	const general = ctx.drawing.generalTolerance;
-	const generalGeometric =
-		general?.kind === 'iso2768' && !!general.geometric && !isAsme(ctx.standard);
+	// An ISO 2768-2 class (H, K, L) gives general straightness, perpendicularity, symmetry and
+	// run-out but no position tolerance: it locates nothing, so it does not exempt a member.
 	let located = false;
 	for (const c of feature.controls ?? []) if (LOCATING.includes(c.characteristic)) located = true;
-	if (located || generalGeometric || feature.datumFeature) return;
+	if (located || feature.datumFeature) return;
 	out.push({
 		rule: 'FIT-06',
 		cause: 'unlocated',
@@ -353,7 +351,7 @@ export function memberLocationRule(ctx: FeatureContext, env: FeatureEnv, out: Fi
 			),
 			value('fits', null, fitList(env))
 		],
-		line: `${feature.callout}: no position, orientation or run-out control, and no general geometric tolerance; member of ${fitList(env)}`,
+		line: `${feature.callout}: no position, orientation or run-out control; member of ${fitList(env)}`,
 		fix: 'Add a position or orientation tolerance to the appropriate datums.'
 	});
 }

@@ -2,6 +2,7 @@
  * GEO: geometric tolerances (PRODUCT.md §5): material modifiers where they cannot apply or have
  * nothing to refer to, zero tolerances without Ⓜ, and datum letters.
  */
+import { isAsme } from '../drawing-context';
 import type { Characteristic, GeometricControl } from '../feature';
 import { ZERO } from '../decimal';
 import { isSurfaceForm } from '../feature';
@@ -9,6 +10,7 @@ import { characteristicWord, show, value, type FeatureContext } from './context'
 import type { Finding } from './emit';
 import { controlCauses, type FeatureEnv } from './feature-env';
 
+/** ASME Y14.5 does not use I, O and Q as datum letters (read as digits); ISO 5459 has no such ban. */
 const FORBIDDEN_DATUM_LETTERS = new Set(['I', 'O', 'Q']);
 const NO_MATERIAL_MODIFIER: readonly Characteristic[] = [
 	'circularity',
@@ -49,10 +51,10 @@ function modifierRules(
 	const c = e.controls[i].control;
 	if (c.modifier === 'rfs') return;
 	const edition2009 = ctx.standard === 'asme-y14.5-2009';
+	const medianPoints =
+		edition2009 && (c.characteristic === 'concentricity' || c.characteristic === 'symmetry');
 	const surface =
-		NO_MATERIAL_MODIFIER.includes(c.characteristic) ||
-		isSurfaceForm(c) ||
-		(edition2009 && (c.characteristic === 'concentricity' || c.characteristic === 'symmetry'));
+		NO_MATERIAL_MODIFIER.includes(c.characteristic) || isSurfaceForm(c) || medianPoints;
 	const name = characteristicWord(c.characteristic);
 	const symbol = modifierSymbol(c.modifier);
 	const modifier = c.modifier.toUpperCase();
@@ -62,8 +64,12 @@ function modifierRules(
 			cause: words.cause(i),
 			message: `${modifier} cannot apply to ${name}${isSurfaceForm(c) ? ' of a surface' : ''}.`,
 			values: [value('control', null, `${name} ${words.value(i)}${symbol}`)],
-			line: `${name} ${words.value(i)}${symbol}: ${name} controls surface elements, not a feature of size`,
-			fix: `Remove the ${symbol.trim()}, or control the derived median line or axis instead.`
+			line: medianPoints
+				? `${name} ${words.value(i)}${symbol}: ${name} controls the median points of the feature and applies regardless of feature size only (ASME Y14.5-2009)`
+				: `${name} ${words.value(i)}${symbol}: ${name} controls surface elements, not a feature of size`,
+			fix: medianPoints
+				? `Remove the ${symbol.trim()}, or use position at MMC where a bonus is wanted.`
+				: `Remove the ${symbol.trim()}, or control the derived median line or axis instead.`
 		});
 	} else if (!thread && (c.modifier === 'mmc' ? e.mmc === null : e.lmc === null)) {
 		out.push({
@@ -107,9 +113,10 @@ function datumRule(
 	const c = ctx.evaluation!.controls[i].control;
 	const missing: string[] = [];
 	const forbidden: string[] = [];
+	const asme = isAsme(ctx.standard);
 	for (const d of c.datums) {
 		const letter = d.trim().toUpperCase();
-		if (FORBIDDEN_DATUM_LETTERS.has(letter)) forbidden.push(letter);
+		if (asme && FORBIDDEN_DATUM_LETTERS.has(letter)) forbidden.push(letter);
 		else if (!env.datumLetters.has(letter)) missing.push(letter);
 	}
 	if (!missing.length && !forbidden.length) return;
@@ -132,7 +139,7 @@ function datumRule(
 /** GEO-04 on the letter the feature itself defines. */
 function ownDatumRule(ctx: FeatureContext, out: Finding[]): void {
 	const own = ctx.feature.datumFeature?.trim().toUpperCase();
-	if (!own || !FORBIDDEN_DATUM_LETTERS.has(own)) return;
+	if (!own || !isAsme(ctx.standard) || !FORBIDDEN_DATUM_LETTERS.has(own)) return;
 	out.push({
 		rule: 'GEO-04',
 		cause: `defines:${own}`,

@@ -212,10 +212,19 @@ export function missingLimitsCause(ctx: FeatureContext): string | null {
 	return 'not-covered';
 }
 
+function hasProfile(ctx: FeatureContext): boolean {
+	for (const c of ctx.feature.controls ?? [])
+		if (c.characteristic === 'profile-of-a-surface' || c.characteristic === 'profile-of-a-line')
+			return true;
+	return false;
+}
+
 /** LIM-01: no limits at all. */
 function missingLimitsRule(ctx: FeatureContext, env: FeatureEnv, out: Finding[]): void {
 	const cause = missingLimitsCause(ctx);
 	if (cause === null || cause === 'no-general-tolerance') return;
+	// A basic size whose feature a profile tolerance controls is toleranced by the profile.
+	if (cause === 'basic' && hasProfile(ctx)) return;
 	const { feature } = ctx;
 	const e = ctx.evaluation!;
 	out.push({
