@@ -295,6 +295,34 @@ describe('fit advisor', () => {
 	test('a bad size', () => {
 		expect(adviseFit({ basicSize: 'abc', units: 'mm' }).ok).toBe(false);
 	});
+
+	test('inch callouts as a drafter writes them: no leading zero, equal places (ASME Y14.5)', () => {
+		// RC1 at .25 in: hole +0.25/0 thou → .25000-.25025 (ANSI B4.1 table, recalled).
+		const r = adviseFit({ basicSize: '.25', units: 'in', wanted: 'running' });
+		if (!r.ok) throw new Error(r.message);
+		const rc1 = r.proposals.find((p) => p.designation === 'RC1')!;
+		expect(rc1.hole.callout).toBe('Ø.25000-.25025');
+		// JSON decimals keep their leading zero (PRODUCT.md §6).
+		expect(rc1.hole.upper).toBe('0.25025');
+		for (const p of r.proposals) {
+			expect(p.hole.callout).toMatch(/^Ø\.(\d+)-\.(\d+)$/);
+			const [, a, b] = /^Ø\.(\d+)-\.(\d+)$/.exec(p.shaft.callout)!;
+			expect(a.length).toBe(b.length);
+		}
+	});
+
+	test('a preferred interference fit that is transition at the size is listed as transition', () => {
+		// ISO 286-2: at 3 mm H7 is 0/+0.010 and p6 +0.006/+0.012, so H7/p6 has clearance up to 0.004.
+		const interference = adviseFit({ basicSize: '3', units: 'mm', wanted: 'interference' });
+		const transition = adviseFit({ basicSize: '3', units: 'mm', wanted: 'transition' });
+		if (!interference.ok || !transition.ok) throw new Error('advice');
+		expect(interference.proposals.map((p) => p.designation)).not.toContain('H7/p6');
+		const p6 = transition.proposals.find((p) => p.designation === 'H7/p6')!;
+		expect(p6.classification).toBe('transition');
+		// At 25 mm it is interference again (max clearance 0.021 − 0.022 = −0.001).
+		const at25 = adviseFit({ basicSize: '25', units: 'mm', wanted: 'interference' });
+		expect(at25.ok && at25.proposals.map((p) => p.designation)).toContain('H7/p6');
+	});
 });
 
 describe('fit diagram', () => {

@@ -112,9 +112,23 @@ function sizeOf(input: AdviseInput): { value: Length; text: string } | null {
 	return v === null || v.value <= 0 ? null : { value: v.value, text };
 }
 
-/** Limits written low first with a dash, as an inch drawing shows a fit member. */
-function limitsCallout(upper: string, lower: string): string {
-	return `Ø${lower}-${upper}`;
+/**
+ * Limits as an inch drawing writes a fit member (ASME Y14.5): low first with a dash, no
+ * leading zero, both with the same places ('Ø.25000-.25025').
+ */
+function limitsCallout(upper: Length, lower: Length): string {
+	const places = Math.max(4, exactPlaces(upper, 'in'), exactPlaces(lower, 'in'));
+	const w = (v: Length) => formatLength(v, 'in', places, { leadingZero: false });
+	return `Ø${w(lower)}-${w(upper)}`;
+}
+
+/**
+ * What a preferred fit is at this size: a fit preferred as interference or transition is listed
+ * under what its limits make it (H7/p6 up to 3 mm is a transition fit, ISO 286-2).
+ */
+function listedAs(wanted: FitWanted, classification: FitClassification): FitWanted {
+	if (wanted !== 'interference' && wanted !== 'transition') return wanted;
+	return classification === 'clearance' ? 'locational-clearance' : classification;
 }
 
 export function adviseFit(input: AdviseInput): AdviseResult {
@@ -124,13 +138,14 @@ export function adviseFit(input: AdviseInput): AdviseResult {
 	const notCovered: string[] = [];
 	if (input.units === 'mm') {
 		for (const p of PREFERRED_FITS) {
-			if (input.wanted && p.wanted !== input.wanted) continue;
 			if (input.basis && p.basis !== input.basis) continue;
 			const fit = isoFit(size.value, `${p.hole}/${p.shaft}`);
 			if (!fit.ok) {
-				notCovered.push(`${p.hole}/${p.shaft}: ${fit.reason}`);
+				if (!input.wanted || p.wanted === input.wanted)
+					notCovered.push(`${p.hole}/${p.shaft}: ${fit.reason}`);
 				continue;
 			}
+			if (input.wanted && listedAs(p.wanted, fit.classification) !== input.wanted) continue;
 			const f = (v: Length) => formatLength(v, 'mm', Math.max(3, exactPlaces(v, 'mm')));
 			proposals.push({
 				designation: `${p.hole}/${p.shaft}`,
@@ -169,18 +184,20 @@ export function adviseFit(input: AdviseInput): AdviseResult {
 			const hl = f(fit.hole.lower);
 			const su = f(fit.shaft.upper);
 			const sl = f(fit.shaft.lower);
+			const holeCallout = limitsCallout(fit.hole.upper, fit.hole.lower);
+			const shaftCallout = limitsCallout(fit.shaft.upper, fit.shaft.lower);
 			proposals.push({
 				designation: cls,
 				standard: 'ANSI B4.1',
 				basis: 'hole',
 				description: ANSI_NAMES[group],
 				classification: classifyFit(fit.minClearance, fit.maxClearance),
-				hole: { code: fit.hole.designation, upper: hu, lower: hl, callout: limitsCallout(hu, hl) },
+				hole: { code: fit.hole.designation, upper: hu, lower: hl, callout: holeCallout },
 				shaft: {
 					code: fit.shaft.designation,
 					upper: su,
 					lower: sl,
-					callout: limitsCallout(su, sl)
+					callout: shaftCallout
 				},
 				minClearance: f(fit.minClearance),
 				maxClearance: f(fit.maxClearance)
