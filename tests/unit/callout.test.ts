@@ -14,20 +14,25 @@ import {
  * and should be checked against the standard before they are quoted to a customer.
  * ASME_1_6_1 etc. name ASME Y14.5-2018 clauses.
  */
-const ASME_METRIC = 'ASME Y14.5-2018 §1.6.1 (recalled): metric values keep the leading zero';
-const ASME_INCH = 'ASME Y14.5-2018 §1.6.2 (recalled): inch values have no leading zero';
+const ASME_METRIC =
+	'ASME Y14.5-2018 §4 (recalled; §1.6.1 in 2009): metric values keep the leading zero';
+const ASME_INCH = 'ASME Y14.5-2018 §4 (recalled; §1.6.2 in 2009): inch values have no leading zero';
 const ASME_UNILATERAL_MM =
-	'ASME Y14.5-2018 §1.6.1(a) (recalled): a nil metric deviation is a single 0 without sign';
+	'ASME Y14.5-2018 §4 (recalled; §1.6.1(a) in 2009): a nil metric deviation is a single 0 without sign';
 const ASME_UNILATERAL_IN =
-	'ASME Y14.5-2018 §1.6.2(b) (recalled): a nil inch deviation has the same places and a sign';
+	'ASME Y14.5-2018 §4 (recalled; §1.6.2(b) in 2009): a nil inch deviation has the same places and a sign';
 const ASME_LIMITS =
-	'ASME Y14.5-2018 §2.2(a) (recalled): limits stacked high over low, or low-high on one line';
-const ASME_BILATERAL = 'ASME Y14.5-2018 §2.2(b) (recalled): plus-and-minus tolerancing';
-const ASME_SINGLE = 'ASME Y14.5-2018 §2.2(c) (recalled): single limits MIN, MAX';
-const ASME_SYMBOLS = 'ASME Y14.5-2018 §3.3 (recalled): Ø, R, CR, SØ, SR, depth ↧, places 4X';
-const ASME_BASIC = 'ASME Y14.5-2018 §3.3 / §1.3 (recalled): basic dimension in a frame';
-const ASME_REFERENCE = 'ASME Y14.5-2018 §1.7 (recalled): reference dimension in parentheses';
-const ASME_MODIFIERS = 'ASME Y14.5-2018 §3.3 (recalled): Ⓕ free state, ⟨ST⟩, Ⓘ, ⟨CF⟩';
+	'ASME Y14.5-2018 §5 tolerancing of size (recalled; §2.2(a) in 2009): limits stacked high over low, or low-high on one line';
+const ASME_BILATERAL = 'ASME Y14.5-2018 §5 (recalled; §2.2(b) in 2009): plus-and-minus tolerancing';
+const ASME_SINGLE = 'ASME Y14.5-2018 §5 (recalled; §2.2(c) in 2009): single limits MIN, MAX';
+const ASME_SYMBOLS =
+	'ASME Y14.5-2018 §6 symbology (recalled; §3.3 in 2009): Ø, R, CR, SØ, SR, depth ↧, places 4X';
+const ASME_BASIC =
+	'ASME Y14.5-2018 §3 definitions and §6 symbology (recalled; §1.3 and §3.3 in 2009): basic dimension in a frame';
+const ASME_REFERENCE =
+	'ASME Y14.5-2018 §4 (recalled; §1.7 in 2009): reference dimension in parentheses';
+const ASME_MODIFIERS =
+	'ASME Y14.5-2018 §6 symbology (recalled; §3.3 in 2009): Ⓕ free state, ⟨ST⟩, Ⓘ, ⟨CF⟩';
 const ISO_129 = 'ISO 129-1:2018 (recalled): the decimal comma; metric leading zero';
 const ISO_286 = 'ISO 286-1:2010 §4 (recalled): a tolerance class is deviation letter(s) + grade';
 const ISO_286_FIT = 'ISO 286-1:2010 §4 (recalled): a fit is the hole class then the shaft class';

@@ -159,7 +159,7 @@ describe('general tolerance', () => {
 });
 
 describe('envelope: ASME Y14.5 Rule #1', () => {
-	// ASME Y14.5-2018 §5.8 (Rule #1): the surface may not violate a boundary of perfect form at
+	// ASME Y14.5-2018 §5 (Rule #1, recalled): the surface may not violate a boundary of perfect form at
 	// MMC, so the largest form deviation equals the size tolerance (at LMC).
 	test('Rule #1 applies to a regular feature of size; form deviation equals the size tolerance', () => {
 		const f = ok({

@@ -635,6 +635,22 @@ describe('fits and fasteners as a checker judges them', () => {
 	});
 });
 
+describe('clauses for the edition the drawing states', () => {
+	it('an ASME 2018 drawing cites 2018 numbers only, a 2009 drawing 2009 numbers only', () => {
+		const f = () => feature('.250-.2515', true);
+		const y2018 = one(run(asme, [f()]), 'LIM-03').clause;
+		expect(y2018).toContain('ASME Y14.5-2018');
+		expect(y2018).not.toContain('2009');
+		const y2009 = one(run({ ...asme, standard: 'asme-y14.5-2009' }, [f()]), 'LIM-03').clause;
+		expect(y2009).toContain('ASME Y14.5-2009 §1.6 and §2.3');
+		expect(y2009).not.toContain('2018');
+		// Every ASME number in the catalogue says it was recalled, not read.
+		for (const r of CATALOGUE)
+			for (const part of r.clause.split('; '))
+				if (part.startsWith('ASME Y14.5')) expect(part).toContain('recalled');
+	});
+});
+
 describe('DOC rules', () => {
 	it('DOC-01: a bare size on a drawing with no general tolerance', () => {
 		const r = one(run({ ...iso, generalTolerance: null }, [feature('8', true)]), 'DOC-01');

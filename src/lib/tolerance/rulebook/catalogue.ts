@@ -44,7 +44,7 @@ const RULES: RuleExplanation[] = [
 			'A seal groove width written as (2.4) — a reference dimension — on an ISO 2768-m drawing. Reference dimensions carry no tolerance and the general tolerance does not apply to them, so the groove has no limits at all.',
 		fix: 'Give the size a tolerance (limits, ± or an ISO 286 class), or make sure the general tolerance covers it.',
 		clause:
-			'ASME Y14.5-2018 §1.4(a) (recalled); ISO 8015:2011 §5.3 definitive drawing (recalled); ISO 2768-1:1989 §1 scope (recalled)'
+			'ASME Y14.5-2018 §4 fundamental rules, rule (a) (recalled); ASME Y14.5-2009 §1.4(a) (recalled); ISO 8015:2011 §5.3 definitive drawing (recalled); ISO 2768-1:1989 §1 scope (recalled)'
 	},
 	{
 		code: 'LIM-02',
@@ -66,7 +66,8 @@ const RULES: RuleExplanation[] = [
 		example:
 			'Ø25 +0.01/+0.03: the deviation written on top (+0.01) is smaller than the one written below (+0.03). Read literally the zone runs from 25.030 down to 25.010; the designer most likely meant 25.010–25.030 but the callout does not say so.',
 		fix: 'Write the larger limit or deviation on top, and give the size a zone of non-zero width.',
-		clause: 'ASME Y14.5-2018 §2.2 (recalled); ISO 14405-1:2016 §5 (recalled)'
+		clause:
+			'ASME Y14.5-2018 §5 tolerancing of size (recalled); ASME Y14.5-2009 §2.2 (recalled); ISO 14405-1:2016 §5 (recalled)'
 	},
 	{
 		code: 'LIM-03',
@@ -80,7 +81,7 @@ const RULES: RuleExplanation[] = [
 			'Pivot hole Ø.250–.2515: the lower limit has 3 places, the upper 4. Written .2500–.2515 the callout says the same thing unambiguously.',
 		fix: 'Add trailing zeros so both values carry the same number of places.',
 		clause:
-			'ASME Y14.5-2018 §1.6.2 inch tolerances and §1.6.1 metric (recalled); ASME Y14.5-2009 §2.3 (recalled)'
+			'ASME Y14.5-2018 §4 units and decimal places (recalled); ASME Y14.5-2009 §1.6 and §2.3 (recalled)'
 	},
 	{
 		code: 'LIM-04',
@@ -111,7 +112,8 @@ const RULES: RuleExplanation[] = [
 		example:
 			'A bearing seat Ø20 MIN in a running fit: the shaft may be any size above 20.000, so the minimum clearance with a Ø20 H7 hole is unbounded below — it may not assemble at all.',
 		fix: 'Give the fit member both limits.',
-		clause: 'ASME Y14.5-2018 §2.2 single limits (recalled); ISO 286-1:2010 §3.3 fits (recalled)'
+		clause:
+			'ASME Y14.5-2018 §5 single limits (recalled); ASME Y14.5-2009 §2.2 (recalled); ISO 286-1:2010 §3.3 fits (recalled)'
 	},
 	{
 		code: 'LIM-06',
@@ -139,7 +141,7 @@ const RULES: RuleExplanation[] = [
 			'Tab thickness .250 ±.005 (size tolerance .010) with a flatness of .015 on an ASME drawing. Under Rule #1 the form must be perfect at MMC, and the flatness error may grow only as the tab departs from MMC, reaching the size tolerance .010 at LMC, so the .015 flatness never governs.',
 		fix: 'Make the form tolerance smaller than the size tolerance, remove it, or lift the envelope where more form error is acceptable.',
 		clause:
-			'ASME Y14.5-2018 §5.8 Rule #1 (recalled), -2009 §2.7.1 (recalled); ISO 14405-1:2016 envelope requirement (recalled)'
+			'ASME Y14.5-2018 §5 limits of size, Rule #1 (recalled); ASME Y14.5-2009 §2.7.1 (recalled); ISO 14405-1:2016 envelope requirement (recalled)'
 	},
 	{
 		code: 'ENV-02',
@@ -168,7 +170,7 @@ const RULES: RuleExplanation[] = [
 			'A pin Ø.2495–.2500 Ⓘ in a running fit with a hole at .2510 MMC: with Rule #1 lifted the pin may bow by more than the .0010 allowance and bind.',
 		fix: 'Remove the exemption, or add a geometric tolerance at MMC that makes a virtual condition.',
 		clause:
-			'ASME Y14.5-2018 §5.8.1–5.8.3 Rule #1 and its exceptions (recalled), -2009 §2.7.1–2.7.3 (recalled)'
+			'ASME Y14.5-2018 §5 Rule #1 and its exceptions (recalled); ASME Y14.5-2009 §2.7.1–2.7.3 (recalled)'
 	},
 	{
 		code: 'ENV-04',
@@ -203,7 +205,7 @@ const RULES: RuleExplanation[] = [
 			'A position Ø0.1 Ⓜ on a feature dimensioned only as (8): no limits, so no MMC and no virtual condition.',
 		fix: 'Remove the modifier, or give the feature limits of size.',
 		clause:
-			'ASME Y14.5-2018 §1.3 definitions of MMC and LMC (recalled); ISO 2692:2014 §4 (recalled)'
+			'ASME Y14.5-2018 §3 definitions of MMC and LMC (recalled); ASME Y14.5-2009 §1.3 (recalled); ISO 2692:2014 §4 (recalled)'
 	},
 	{
 		code: 'GEO-02',
@@ -218,7 +220,7 @@ const RULES: RuleExplanation[] = [
 			'Cylindricity 0.01 Ⓜ on Ø12 g6: cylindricity is a surface control; the Ⓜ has no meaning.',
 		fix: 'Remove the modifier, or use a control of the derived feature (straightness of the median line, position).',
 		clause:
-			'ASME Y14.5-2018 §5.4–5.5 form tolerances (recalled), -2009 §5.4 and §7.6 (recalled); ISO 2692:2014 §4 (recalled)'
+			'ASME Y14.5-2018 §8 form (recalled); ASME Y14.5-2009 §5.4 and §7.6 (recalled); ISO 2692:2014 §4 (recalled)'
 	},
 	{
 		code: 'GEO-03',
@@ -231,7 +233,7 @@ const RULES: RuleExplanation[] = [
 		example: 'Position Ø0 A B on Ø6.6 holes without Ⓜ: nothing can meet it.',
 		fix: 'Add Ⓜ (zero tolerancing at MMC) or give a tolerance value above zero.',
 		clause:
-			'ASME Y14.5-2018, zero positional tolerance at MMC in the section on tolerances of location (clause number not recalled); ISO 2692:2014 (recalled)'
+			'ASME Y14.5-2018 §10 location, zero positional tolerance at MMC (recalled); ISO 2692:2014 (recalled)'
 	},
 	{
 		code: 'GEO-04',
@@ -243,7 +245,8 @@ const RULES: RuleExplanation[] = [
 		why: 'A tolerance referencing an undefined datum has no reference frame; the inspector cannot set the part up.',
 		example: 'Position Ø0.2 Ⓜ A B C on a drawing where only A and B are defined.',
 		fix: 'Define the datum on the drawing, or reference one that is.',
-		clause: 'ASME Y14.5-2018 §3.3.2 datum feature symbol (recalled); ISO 5459:2011 §6 (recalled)'
+		clause:
+			'ASME Y14.5-2018 §6 datum feature symbol and §7 datums (recalled); ASME Y14.5-2009 §3.3.2 (recalled); ISO 5459:2011 §6 (recalled)'
 	},
 	{
 		code: 'FIT-01',
@@ -271,7 +274,7 @@ const RULES: RuleExplanation[] = [
 			'Journal Ø12 g6 (11.983–11.994) with straightness of the median line Ø0.02 Ⓜ: virtual condition 11.994 + 0.020 = 12.014, against the bushing’s MMC 12.000 gives −0.014 — interference in a running fit.',
 		fix: 'Reduce the geometric tolerance (or use zero at MMC), or increase the allowance between the sizes.',
 		clause:
-			'ASME Y14.5-2018 §1.3 virtual condition (recalled); ISO 2692:2014 maximum material virtual size (recalled)'
+			'ASME Y14.5-2018 §3 definition of virtual condition (recalled); ASME Y14.5-2009 §1.3 (recalled); ISO 2692:2014 maximum material virtual size (recalled)'
 	},
 	{
 		code: 'FIT-03',
@@ -326,7 +329,7 @@ const RULES: RuleExplanation[] = [
 			'A pivot hole located only by a 1.250 ±.005 dimension with no perpendicularity to the tab face.',
 		fix: 'Add a position or orientation tolerance to the appropriate datums.',
 		clause:
-			'ASME Y14.5-2018 §6–7 (recalled); ISO 1101:2017 §18 (recalled); ISO 2768-2:1989 (withdrawn 2021)'
+			'ASME Y14.5-2018 §9 orientation and §10 location (recalled); ISO 1101:2017 §18 (recalled); ISO 2768-2:1989 (withdrawn 2021)'
 	},
 	{
 		code: 'DOC-01',
@@ -339,7 +342,7 @@ const RULES: RuleExplanation[] = [
 		example: 'A slot width 8 on a drawing with no ISO 2768 note and no title-block tolerance.',
 		fix: 'State the general tolerance in the title block (for example ISO 2768-m, or .XX ±.01 .XXX ±.005), or tolerance the size.',
 		clause:
-			'ISO 2768-1:1989 §4 indication on drawings (recalled); ASME Y14.5-2018 §1.4(a) (recalled)'
+			'ISO 2768-1:1989 §5 indication on drawings (recalled); ASME Y14.5-2018 §4 fundamental rules (recalled); ASME Y14.5-2009 §1.4(a) (recalled)'
 	},
 	{
 		code: 'DOC-02',

@@ -1,3 +1,4 @@
+import type { GoverningStandard } from '../drawing-context';
 import { ruleExplanation, defaultSeverity } from './catalogue';
 import type { ResultValue, RuleCode, RuleResult, RulebookTeam, Severity } from './types';
 
@@ -29,9 +30,28 @@ export function resultKey(rule: RuleCode, subject: Subject, cause: string): stri
 const clauses = new Map<string, string>();
 const fixedSeverities = new Map<string, Severity | null>();
 
-function clauseOf(rule: RuleCode): string {
-	let clause = clauses.get(rule);
-	if (clause === undefined) clauses.set(rule, (clause = ruleExplanation(rule)?.clause ?? ''));
+const OTHER_EDITION: Partial<Record<GoverningStandard, string>> = {
+	'asme-y14.5-2018': 'ASME Y14.5-2009',
+	'asme-y14.5-2009': 'ASME Y14.5-2018'
+};
+
+/**
+ * The catalogue's clause for the edition the drawing states: on an ASME drawing the citations
+ * of the other edition are left out (their numbering differs), so no number from the wrong
+ * edition is shown. ISO and unstated drawings get every citation.
+ */
+export function citeFor(clause: string, standard: GoverningStandard): string {
+	const other = OTHER_EDITION[standard];
+	if (!other) return clause;
+	const kept = clause.split('; ').filter((part) => !part.startsWith(other));
+	return kept.length ? kept.join('; ') : clause;
+}
+
+function clauseOf(rule: RuleCode, standard: GoverningStandard): string {
+	const key = `${rule}|${standard}`;
+	let clause = clauses.get(key);
+	if (clause === undefined)
+		clauses.set(key, (clause = citeFor(ruleExplanation(rule)?.clause ?? '', standard)));
 	return clause;
 }
 
@@ -48,7 +68,8 @@ function severityOf(rule: RuleCode, cause: string): Severity {
 export function toResult(
 	finding: Finding,
 	subject: Subject,
-	team: RulebookTeam | undefined
+	team: RulebookTeam | undefined,
+	standard: GoverningStandard
 ): RuleResult {
 	return {
 		key: resultKey(finding.rule, subject, finding.cause),
@@ -62,6 +83,6 @@ export function toResult(
 		values: finding.values,
 		line: finding.line,
 		fix: finding.fix,
-		clause: clauseOf(finding.rule)
+		clause: clauseOf(finding.rule, standard)
 	};
 }

@@ -359,7 +359,7 @@ export function evaluate(input: RulebookInput): RuleResult[] {
 		};
 		const subject: Subject = { subject: 'drawing', featureId: null, fitId: null };
 		for (const finding of drawingRules(drawing, all))
-			results.push(toResult(finding, subject, team));
+			results.push(toResult(finding, subject, team, drawing.standard));
 	}
 
 	for (const at of scope.features) {
@@ -376,7 +376,8 @@ export function evaluate(input: RulebookInput): RuleResult[] {
 			featureId: ctx.feature.id,
 			fitId: memberOf.length ? memberOf[0].fit.id : null
 		};
-		for (const finding of sortFindings(findings)) results.push(toResult(finding, subject, team));
+		for (const finding of sortFindings(findings))
+			results.push(toResult(finding, subject, team, ctx.standard));
 		if (memberOf.length) {
 			if (readableInFull) readableInFull[at] = ctx.ok;
 			else readable.set(at, ctx.ok);
@@ -398,7 +399,9 @@ export function evaluate(input: RulebookInput): RuleResult[] {
 		const findings: Finding[] = [];
 		fitRules(fit, r, hole, shaft, findings);
 		const subject: Subject = { subject: 'fit', featureId: fit.holeFeatureId, fitId: fit.id };
-		for (const finding of sortFindings(findings)) results.push(toResult(finding, subject, team));
+		const standard = (hole.drawing ?? drawing).standard;
+		for (const finding of sortFindings(findings))
+			results.push(toResult(finding, subject, team, standard));
 	}
 	return results;
 }
