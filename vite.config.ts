@@ -8,13 +8,7 @@ export default defineConfig({
 		projects: [
 			{
 				extends: './vite.config.ts',
-				// Property tests run tens of thousands of cases; a shared, busy machine needs more than 5 s.
-				test: {
-					name: 'unit',
-					include: ['tests/unit/**/*.test.ts'],
-					environment: 'node',
-					testTimeout: 60_000
-				}
+				test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' }
 			},
 			{
 				extends: './vite.config.ts',

@@ -1,23 +1,18 @@
+import type { Units } from '$lib/tolerance/decimal';
+import type { GeneralTolerance, GoverningStandard } from '$lib/tolerance/drawing-context';
 import type { DemoCallout, Sheet } from '../sheet';
 
-export type DemoDrawingNumber = 'KF-1001' | 'KF-1002' | 'KF-1003' | 'KF-2001';
+export type { GeneralTolerance } from '$lib/tolerance/drawing-context';
 
-export type GeneralTolerance =
-	| {
-			kind: 'iso2768';
-			linear: 'f' | 'm' | 'c' | 'v';
-			geometric?: 'H' | 'K' | 'L';
-			envelope?: boolean;
-	  }
-	| { kind: 'decimal-places'; byPlaces: Record<string, string>; angle?: string };
+export type DemoDrawingNumber = 'KF-1001' | 'KF-1002' | 'KF-1003' | 'KF-2001';
 
 export interface DemoDrawing {
 	number: DemoDrawingNumber;
 	title: string;
 	partName: string;
 	material: string;
-	units: 'mm' | 'in';
-	standard: 'iso-8015' | 'asme-y14.5-2018';
+	units: Units;
+	standard: GoverningStandard;
 	generalTolerance: GeneralTolerance;
 	notes: string;
 	/** Page size in PDF points (one sheet each). */
