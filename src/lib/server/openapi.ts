@@ -79,7 +79,12 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 	},
 	'/teams/{team}/drawings/{number}/revisions/{letter}': {
 		get: { summary: 'One revision', success: 200 },
-		patch: { summary: 'Correct the reason for the change', body: revisionPatch, success: 200 }
+		patch: {
+			summary:
+				'Correct the reason for the change or edit the settings (units, standard, general tolerance) while not frozen',
+			body: revisionPatch,
+			success: 200
+		}
 	},
 	'/teams/{team}/drawings/{number}/revisions/{letter}/file': {
 		get: {
