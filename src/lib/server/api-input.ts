@@ -12,7 +12,16 @@ export async function readJson<S extends z.ZodType>(
 	} catch {
 		error(400, { message: 'The body must be JSON', code: 'invalid' });
 	}
-	const parsed = schema.safeParse(body);
+	return validated(schema, body);
+}
+
+/** Reads and validates the query string the same way (`?version=` and the like). */
+export function readQuery<S extends z.ZodType>(url: URL, schema: S): z.infer<S> {
+	return validated(schema, Object.fromEntries(url.searchParams));
+}
+
+function validated<S extends z.ZodType>(schema: S, data: unknown): z.infer<S> {
+	const parsed = schema.safeParse(data);
 	if (!parsed.success) {
 		const fields = z.flattenError(parsed.error).fieldErrors as Record<string, string[]>;
 		const first = Object.entries(fields)[0];

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { adviseInput, fitInput, sizeInput, sizeQuery } from '$lib/schemas/calc';
 import { drawingInput, drawingPatch, revisionPatch } from '$lib/schemas/drawings';
+import { deleteQuery, featureInput, featurePatch, featureResponse } from '$lib/schemas/features';
 import { apiTokenInput, memberInput, roleInput, teamInput } from '$lib/schemas/teams';
 
 type Method = 'get' | 'post' | 'patch' | 'delete';
@@ -12,6 +13,8 @@ interface Operation {
 	public?: boolean;
 	success: number;
 	produces?: string;
+	/** The success answer's shape, when the document describes it. */
+	response?: z.ZodType;
 }
 
 /**
@@ -93,6 +96,35 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 			produces: 'application/pdf'
 		}
 	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/features': {
+		get: {
+			summary: 'Features of size on the revision, balloon order, with computed values and findings',
+			response: z.array(featureResponse),
+			success: 200
+		},
+		post: {
+			summary:
+				'Add a feature (next balloon of the drawing); a bad callout answers 400 with `position`, a frozen revision 409 frozen',
+			body: featureInput,
+			response: featureResponse,
+			success: 201
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/features/{id}': {
+		get: { summary: 'One feature', response: featureResponse, success: 200 },
+		patch: {
+			summary:
+				'Edit or move a feature; 409 stale with the current feature, 409 frozen on approved and released revisions',
+			body: featurePatch,
+			response: featureResponse,
+			success: 200
+		},
+		delete: {
+			summary: 'Delete a feature (its balloon is not reused)',
+			query: deleteQuery,
+			success: 204
+		}
+	},
 	'/calc/size': {
 		get: {
 			summary: 'Limits, MMC/LMC, envelope and gauges of one callout',
@@ -127,6 +159,9 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 
 const jsonSchema = (schema: z.ZodType) =>
 	z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any', target: 'openapi-3.0' });
+
+const responseSchema = (schema: z.ZodType) =>
+	z.toJSONSchema(schema, { io: 'output', unrepresentable: 'any', target: 'openapi-3.0' });
 
 const errorResponse = {
 	description: 'An error: `{error: {code, message, …}}`',
@@ -183,7 +218,11 @@ export function openApiDocument(origin: string) {
 					[op.success]: {
 						description: 'Success',
 						...(op.success !== 204 && {
-							content: { [op.produces ?? 'application/json']: {} }
+							content: {
+								[op.produces ?? 'application/json']: op.response
+									? { schema: responseSchema(op.response) }
+									: {}
+							}
 						})
 					},
 					default: errorResponse

@@ -20,6 +20,7 @@ import {
 } from '../../tolerance/drawing-context';
 import type { Characteristic } from '../../tolerance/feature';
 import type { RulebookTeam } from '../../tolerance/rulebook/types';
+import { featureKinds } from '../../features';
 
 // Auth.js tables (shape expected by @auth/drizzle-adapter); sessions are JWTs, so no sessions table.
 export const users = pgTable('users', {
@@ -283,19 +284,6 @@ export const revisions = pgTable(
 	},
 	(table) => [uniqueIndex('revisions_drawing_letter_idx').on(table.drawingId, table.letter)]
 );
-
-export const featureKinds = [
-	'hole',
-	'bore',
-	'pin',
-	'shaft',
-	'slot',
-	'tab',
-	'width',
-	'thread',
-	'other'
-] as const;
-export type FeatureKind = (typeof featureKinds)[number];
 
 /** A geometric tolerance as stored: the calc API's control shape (PRODUCT.md §6 `controls`). */
 export interface StoredControl {
