@@ -61,13 +61,14 @@ beforeAll(async () => {
 });
 
 describe('who may create, edit and delete features on a draft revision', () => {
-	// Supplier quality reads released revisions only: a draft is not found for them.
+	// Supplier quality may not edit features (403, before anything is looked up) and reads
+	// released revisions only: a draft is not found for them.
 	const expected: Record<Actor, [create: number, read: number, edit: number, remove: number]> = {
 		signedOut: [401, 401, 401, 401],
 		admin: [201, 200, 200, 204],
 		drafter: [201, 200, 200, 204],
 		checker: [201, 200, 200, 204],
-		quality: [404, 404, 404, 404],
+		quality: [403, 404, 403, 403],
 		outsider: [404, 404, 404, 404]
 	};
 	for (const actor of actors) {
