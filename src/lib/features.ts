@@ -4,6 +4,7 @@
  */
 import type { z } from 'zod';
 import type { featureInput, featurePatch, featureResponse } from '$lib/schemas/features';
+import type { FeatureKind as CoreFeatureKind } from '$lib/tolerance/rulebook';
 
 /** Feature kinds (API values). */
 export const featureKinds = [
@@ -16,7 +17,7 @@ export const featureKinds = [
 	'width',
 	'thread',
 	'other'
-] as const;
+] as const satisfies readonly CoreFeatureKind[];
 export type FeatureKind = (typeof featureKinds)[number];
 
 /** Kinds that are holes unless said otherwise (an ISO 286 code's letter case decides first). */

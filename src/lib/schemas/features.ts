@@ -143,7 +143,8 @@ export const featureResponse = z.object({
 		z.object({
 			rule: z.string(),
 			severity: z.enum(['critical', 'major', 'minor', 'note']),
-			message: z.string()
+			message: z.string(),
+			line: z.string()
 		})
 	)
 });

@@ -3,11 +3,16 @@
  * Callers check who is asking (`requireRevision`); these functions check the rest (the callout
  * reads, the revision is not frozen, the version is current) and answer an Outcome either way.
  */
-import { sizeJson } from '$lib/calc-api';
+import { findingJson, sizeJson } from '$lib/calc-api';
 import { internalKinds, type FeatureJson } from '$lib/features';
 import type { FeatureInput, FeaturePatch } from '$lib/schemas/features';
 import { evaluateFeature, type FeatureResult } from '$lib/tolerance/feature';
-import { evaluate, type RulebookFeature, type RulebookTeam } from '$lib/tolerance/rulebook';
+import {
+	evaluate,
+	type RuleResult,
+	type RulebookFeature,
+	type RulebookTeam
+} from '$lib/tolerance/rulebook';
 import type { Db } from './db/connect';
 import type { Actor } from './db/queries/activity';
 import {
@@ -59,18 +64,14 @@ function evaluation(
 	});
 }
 
-function featureJson(
-	place: FeaturePlace,
-	row: FeatureRow,
-	findings: FeatureJson['findings']
-): FeatureJson {
+function featureJson(place: FeaturePlace, row: FeatureRow, findings: RuleResult[]): FeatureJson {
 	const result = evaluation(place, row);
 	let computed: Partial<Omit<ReturnType<typeof sizeJson>, 'callout' | 'internal'>> & {
 		canonical?: string;
 	} = {};
 	let problem: { message: string; field: string; position: number | null } | null = null;
 	if (result?.ok) {
-		const { callout: canonical, internal: _internal, ...values } = sizeJson(result);
+		const { callout: canonical, internal: _internal, ...values } = sizeJson(result, findings);
 		computed = { canonical, ...values };
 	} else if (result) {
 		problem = { message: result.message, field: result.field, position: result.position };
@@ -80,9 +81,9 @@ function featureJson(
 		createdAt: row.createdAt.toISOString(),
 		updatedAt: row.updatedAt.toISOString(),
 		settings: place.revision.settings,
-		...computed,
 		problem,
-		findings
+		findings: findings.map(findingJson),
+		...computed
 	};
 }
 
@@ -92,10 +93,7 @@ function rulebookFindings(place: FeaturePlace, rows: FeatureRow[]) {
 	const sized = rows.filter((r) => r.callout);
 	const team: RulebookTeam = {
 		severityOverrides: place.team.settings.severityOverrides,
-		capabilityGrade:
-			place.team.settings.capabilityGrade === undefined
-				? null
-				: String(place.team.settings.capabilityGrade)
+		capabilityGrade: place.team.settings.capabilityGrade ?? null
 	};
 	const results = evaluate({
 		drawing: {
@@ -114,16 +112,17 @@ function rulebookFindings(place: FeaturePlace, rows: FeatureRow[]) {
 			controls: r.controls,
 			overrides: r.overrides,
 			datumFeature: r.datumFeature ?? undefined,
+			boughtOut: r.boughtOut,
 			notes: r.notes
 		})),
 		fits: [],
 		team
 	});
-	const byFeature = new Map<string, FeatureJson['findings']>();
+	const byFeature = new Map<string, RuleResult[]>();
 	for (const r of results) {
 		if (r.subject !== 'feature' || !r.featureId) continue;
 		const list = byFeature.get(r.featureId) ?? [];
-		list.push({ rule: r.rule, severity: r.severity, message: r.message });
+		list.push(r);
 		byFeature.set(r.featureId, list);
 	}
 	return (id: string) => byFeature.get(id) ?? [];
