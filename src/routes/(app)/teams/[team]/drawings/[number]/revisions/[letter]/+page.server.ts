@@ -1,3 +1,5 @@
+import { db } from '$lib/server/db';
+import { getUserById } from '$lib/server/db/queries/users';
 import { requireRevision } from '$lib/server/drawings';
 import type { PageServerLoad } from './$types';
 
@@ -8,6 +10,7 @@ export const load: PageServerLoad = async ({ params }) => {
 		params.letter,
 		'view'
 	);
+	const uploader = revision.uploadedBy ? await getUserById(db, revision.uploadedBy) : null;
 	return {
 		drawing: { number: drawing.number, title: drawing.title, units: drawing.units },
 		revision: {
@@ -18,7 +21,8 @@ export const load: PageServerLoad = async ({ params }) => {
 			sheets: revision.sheets,
 			size: revision.size,
 			sha256: revision.sha256,
-			createdAt: revision.createdAt
+			createdAt: revision.createdAt,
+			uploadedBy: uploader ? (uploader.name ?? uploader.email) : null
 		}
 	};
 };

@@ -1,0 +1,215 @@
+import Konva from 'konva';
+import {
+	isArea,
+	labelPoint,
+	markerRadius,
+	visibleMarkers,
+	type Marker,
+	type MarkerTone
+} from './markers';
+import { pageToScreen, scaleOf, visibleRegion, type PageSize, type Size, type View } from './view';
+
+export const toneColours: Record<MarkerTone, string> = {
+	feature: '#1d5fa8',
+	finding: '#6a4c93',
+	critical: '#b42318',
+	major: '#b54708',
+	minor: '#8a6d00',
+	note: '#5f6b7a'
+};
+
+type Look = 'plain' | 'highlighted' | 'selected' | 'focused';
+
+export interface Frame {
+	sheet: number;
+	view: View;
+	page: PageSize;
+	viewport: Size;
+}
+
+/**
+ * The markers above the sheet: a Konva stage the size of the viewport with one shape that draws
+ * only the markers in view, each from a small picture of itself drawn once (its "sprite") and
+ * kept. Nothing here listens to pointer events: the board hit-tests in view coordinates.
+ */
+export class MarkerLayer {
+	readonly stage: Konva.Stage;
+	readonly #layer: Konva.Layer;
+	#markers: Marker[] = [];
+	#sprites = new Map<string, HTMLCanvasElement>();
+	#frame: Frame | null = null;
+	#selected: string | null = null;
+	#focused: string | null = null;
+	#highlighted = new Set<string>();
+	/** How many markers the last draw showed (for tests and the bench). */
+	drawn = 0;
+
+	constructor(container: HTMLDivElement, size: Size) {
+		this.stage = new Konva.Stage({ container, ...size, listening: false });
+		this.#layer = new Konva.Layer({ listening: false });
+		const shape = new Konva.Shape({
+			listening: false,
+			perfectDrawEnabled: false,
+			sceneFunc: (context) => this.#paint(context._context)
+		});
+		this.#layer.add(shape);
+		this.stage.add(this.#layer);
+	}
+
+	setMarkers(markers: Marker[]) {
+		this.#markers = markers;
+	}
+
+	setLooks(looks: { selected: string | null; focused: string | null; highlighted: Set<string> }) {
+		this.#selected = looks.selected;
+		this.#focused = looks.focused;
+		this.#highlighted = looks.highlighted;
+	}
+
+	/** Draws the markers for this frame now (once per animation frame at most). */
+	draw(frame: Frame) {
+		this.#frame = frame;
+		if (this.stage.width() !== frame.viewport.width) this.stage.width(frame.viewport.width);
+		if (this.stage.height() !== frame.viewport.height) this.stage.height(frame.viewport.height);
+		this.#layer.draw();
+	}
+
+	/** The markers this frame shows, in drawing order. */
+	inView(frame: Frame): Marker[] {
+		const region = visibleRegion(frame.view, frame.page, frame.viewport);
+		const scale = scaleOf(frame.view.zoom);
+		const margin = {
+			x: (markerRadius * 4) / (frame.page.width * scale),
+			y: (markerRadius * 2) / (frame.page.height * scale)
+		};
+		return visibleMarkers(this.#markers, frame.sheet, region, margin);
+	}
+
+	#look(id: string): Look {
+		if (id === this.#selected) return 'selected';
+		if (id === this.#focused) return 'focused';
+		return this.#highlighted.has(id) ? 'highlighted' : 'plain';
+	}
+
+	#paint(context: CanvasRenderingContext2D) {
+		const frame = this.#frame;
+		if (!frame) return;
+		const shown = this.inView(frame);
+		const toScreen = (p: { x: number; y: number }) =>
+			pageToScreen(p, frame.view, frame.page, frame.viewport);
+		// Selected, focused and highlighted markers are drawn last, over the others.
+		const order = (m: Marker) => (this.#look(m.id) === 'plain' ? 0 : 1);
+		shown.sort((a, b) => order(a) - order(b));
+		for (const marker of shown) {
+			const look = this.#look(marker.id);
+			const colour = toneColours[marker.tone ?? 'feature'];
+			if (isArea(marker.location)) {
+				const l = marker.location;
+				const a = toScreen(l);
+				const b = toScreen({ x: l.x + l.w!, y: l.y + l.h! });
+				outline(context, a.x, a.y, b.x - a.x, b.y - a.y, marker.outline ?? 'box', colour, look);
+			}
+			const at = toScreen(labelPoint(marker.location));
+			const sprite = this.#sprite(marker, look, colour);
+			const size = sprite.width / spriteRatio();
+			context.drawImage(sprite, at.x - size / 2, at.y - size / 2, size, size);
+		}
+		this.drawn = shown.length;
+	}
+
+	#sprite(marker: Marker, look: Look, colour: string) {
+		const key = `${colour}|${look}|${marker.label}`;
+		let sprite = this.#sprites.get(key);
+		if (!sprite) {
+			sprite = drawSprite(marker.label, colour, look);
+			this.#sprites.set(key, sprite);
+		}
+		return sprite;
+	}
+
+	destroy() {
+		this.stage.destroy();
+		this.#sprites.clear();
+	}
+}
+
+const spriteRatio = () => Math.max(1, Math.ceil(globalThis.devicePixelRatio || 1));
+/** Room around the disc for the selection and focus rings. */
+const ringRoom = 6;
+
+function drawSprite(label: string, colour: string, look: Look) {
+	const ratio = spriteRatio();
+	const size = (markerRadius + ringRoom) * 2;
+	const canvas = document.createElement('canvas');
+	canvas.width = canvas.height = size * ratio;
+	const c = canvas.getContext('2d')!;
+	c.scale(ratio, ratio);
+	const middle = size / 2;
+	if (look !== 'plain') {
+		c.beginPath();
+		c.arc(middle, middle, markerRadius + 4, 0, Math.PI * 2);
+		c.lineWidth = look === 'highlighted' ? 4 : 2.5;
+		c.strokeStyle = look === 'highlighted' ? 'rgba(255, 196, 0, 0.9)' : '#1f2933';
+		if (look === 'focused') c.setLineDash([3, 2]);
+		c.stroke();
+		c.setLineDash([]);
+	}
+	c.beginPath();
+	c.arc(middle, middle, markerRadius, 0, Math.PI * 2);
+	c.fillStyle = colour;
+	c.fill();
+	c.lineWidth = 1.5;
+	c.strokeStyle = '#ffffff';
+	c.stroke();
+	if (label) {
+		c.fillStyle = '#ffffff';
+		c.textAlign = 'center';
+		c.textBaseline = 'middle';
+		const fontSize = label.length > 3 ? 8 : 10;
+		c.font = `600 ${fontSize}px 'Noto Sans', sans-serif`;
+		c.fillText(label, middle, middle + 0.5, markerRadius * 2 - 3);
+	}
+	return canvas;
+}
+
+function outline(
+	c: CanvasRenderingContext2D,
+	x: number,
+	y: number,
+	width: number,
+	height: number,
+	kind: 'box' | 'cloud',
+	colour: string,
+	look: Look
+) {
+	c.save();
+	c.strokeStyle = colour;
+	c.lineWidth = look === 'plain' ? 1.5 : 3;
+	c.beginPath();
+	if (kind === 'box') c.rect(x, y, width, height);
+	else cloud(c, x, y, width, height);
+	c.stroke();
+	c.restore();
+}
+
+/** A cloud: scallops of about 14 CSS pixels along each edge, bulging outwards. */
+function cloud(c: CanvasRenderingContext2D, x: number, y: number, width: number, height: number) {
+	const edges: [number, number, number, number][] = [
+		[x, y, x + width, y],
+		[x + width, y, x + width, y + height],
+		[x + width, y + height, x, y + height],
+		[x, y + height, x, y]
+	];
+	for (const [x0, y0, x1, y1] of edges) {
+		const length = Math.hypot(x1 - x0, y1 - y0);
+		const count = Math.max(1, Math.min(200, Math.round(length / 14)));
+		const angle = Math.atan2(y1 - y0, x1 - x0);
+		const radius = length / count / 2;
+		for (let i = 0; i < count; i++) {
+			const cx = x0 + ((x1 - x0) * (i + 0.5)) / count;
+			const cy = y0 + ((y1 - y0) * (i + 0.5)) / count;
+			c.moveTo(cx - Math.cos(angle) * radius, cy - Math.sin(angle) * radius);
+			c.arc(cx, cy, radius, angle + Math.PI, angle, false);
+		}
+	}
+}
