@@ -53,10 +53,13 @@ describe('the drafter', () => {
 
 		await page.getByRole('link', { name: 'A', exact: true }).click();
 		await page.getByRole('heading', { name: 'Revision A' }).waitFor();
-		// Thumbnails are drawn by pdf.js in the page: wait until the second canvas has pixels.
+		// The board draws the first sheet, then the sheet strip's thumbnails.
+		await page.getByRole('button', { name: 'Sheet 2', exact: true }).waitFor();
 		await page.waitForFunction(() => {
-			const canvas = document.querySelector<HTMLCanvasElement>('canvas[data-sheet="2"]');
-			return canvas !== null && canvas.width > 0;
+			const root = document.querySelector('[data-board]') as HTMLElement & {
+				board?: { pictureReady: boolean };
+			};
+			return root?.board?.pictureReady === true;
 		});
 		await screenshot(page, 'revision');
 		expect(outside).toEqual([]);

@@ -39,10 +39,10 @@ export interface BoardEvents {
  * and the marker layer), redrawn at most once per animation frame.
  */
 export class BoardState {
-	sheets = $state<PageSize[]>([]);
+	sheets = $state.raw<PageSize[]>([]);
 	sheet = $state(1);
-	view = $state<View | null>(null);
-	viewport = $state<Size>({ width: 0, height: 0 });
+	view = $state.raw<View | null>(null);
+	viewport = $state.raw<Size>({ width: 0, height: 0 });
 	status = $state<BoardStatus>('starting');
 	message = $state('');
 	/** The current sheet's picture is drawn (until then a placeholder shows). */
@@ -50,8 +50,10 @@ export class BoardState {
 	markers = $state.raw<Marker[]>([]);
 	selected = $state<string | null>(null);
 	focused = $state<string | null>(null);
-	hovered = $state<{ marker: Marker; at: Point } | null>(null);
+	hovered = $state.raw<{ marker: Marker; at: Point } | null>(null);
 	highlighted = $state.raw(new Set<string>());
+	/** Nothing moving and no drawing under way: what is shown is final (for tests and the bench). */
+	idle = $state(false);
 	/** Figures for tests and the bench: milliseconds of the last picture and sharp drawings. */
 	timings = $state({ firstSheet: 0, picture: 0, sharp: 0 });
 
@@ -147,7 +149,7 @@ export class BoardState {
 		if (number !== this.sheet) return;
 		this.#page = page;
 		const size = source.size(page);
-		this.sheets[number - 1] = size;
+		this.sheets = this.sheets.map((old, index) => (index === number - 1 ? size : old));
 		painter.setPage(page, size);
 		this.status = 'ready';
 		if (!this.view || this.#fitted === 'sheet') this.view = fitSheet(size, this.viewport);
@@ -242,6 +244,7 @@ export class BoardState {
 	/** Something moved: draw on the next frame, drop a sharp drawing under way, wait to settle. */
 	#moved() {
 		this.hovered = null;
+		this.idle = false;
 		this.#painter?.cancelSharp();
 		this.#requestFrame();
 		this.#scheduleSettle();
@@ -249,10 +252,12 @@ export class BoardState {
 
 	#scheduleSettle() {
 		clearTimeout(this.#settle);
-		this.#settle = setTimeout(() => {
+		this.#settle = setTimeout(async () => {
 			if (!this.view || !this.#painter || this.viewport.width === 0) return;
-			void this.#painter.paintSharp(this.view, this.viewport, devicePixelRatio);
 			this.events.onview?.(this.link(), 'replace');
+			const view = this.view;
+			await this.#painter.paintSharp(view, this.viewport, devicePixelRatio);
+			if (this.view === view && this.pictureReady) this.idle = true;
 		}, settleMs);
 	}
 
