@@ -1,5 +1,6 @@
 import type { PDFPageProxy } from 'pdfjs-dist';
-import { MarkerLayer } from './marker-layer';
+import { browser } from '$app/environment';
+import type { MarkerLayer } from './marker-layer';
 import { markerAt, markerCentre, movedLocation, readingOrder, type Marker } from './markers';
 import { openFailure, openSheets, type SheetSource } from './pdf-document';
 import { SheetPainter } from './sheet-painter';
@@ -57,6 +58,8 @@ export class BoardState {
 	/** Figures for tests and the bench: milliseconds of the last picture and sharp drawings. */
 	timings = $state({ firstSheet: 0, picture: 0, sharp: 0 });
 
+	/** Milliseconds each recent frame took to draw (for the bench; not reactive). */
+	readonly drawTimes: number[] = [];
 	readonly events: BoardEvents;
 	#source: SheetSource | null = null;
 	#painter: SheetPainter | null = null;
@@ -66,11 +69,19 @@ export class BoardState {
 	#settle: ReturnType<typeof setTimeout> | undefined;
 	#fitted: 'sheet' | 'width' | null = 'sheet';
 	#pendingShow: string | null = null;
+	/** The marker layer must be drawn afresh (not only moved with the view) on the next frame. */
+	#markersChanged = true;
 	#opened = performance.now();
+	#opening: Promise<SheetSource> | null = null;
 
-	constructor(sheets: PageSize[], events: BoardEvents = {}) {
+	constructor(sheets: PageSize[], url: string, events: BoardEvents = {}) {
 		this.sheets = sheets;
 		this.events = events;
+		// In the browser the PDF starts opening at once, while the page is still being hydrated.
+		if (browser) {
+			this.#opening = openSheets(url);
+			this.#opening.catch(() => {}); // reported by attach()
+		}
 	}
 
 	get page(): PageSize {
@@ -81,25 +92,29 @@ export class BoardState {
 		return this.view ? Math.round(this.view.zoom * 100) : null;
 	}
 
-	/** Starts drawing into `canvas` and `markerContainer`, opening the PDF at `url`. */
-	async attach(canvas: HTMLCanvasElement, markerContainer: HTMLDivElement, url: string) {
-		this.#painter = new SheetPainter(canvas);
-		this.#painter.onpainted = (what, ms) => this.#painted(what, ms);
-		this.#painter.onfailed = (message) => this.#fail(message);
-		this.#layer = new MarkerLayer(markerContainer, this.viewport);
-		this.#layer.setMarkers(this.markers);
+	/** Starts drawing into `canvas` and `markerContainer` (Konva loads beside pdf.js). */
+	async attach(canvas: HTMLCanvasElement, markerContainer: HTMLDivElement) {
+		const painter = new SheetPainter(canvas);
+		painter.onpainted = (what, ms) => this.#painted(what, ms);
+		painter.onfailed = (message) => this.#fail(message);
+		this.#painter = painter;
 		this.#requestFrame();
+		const layer = import('./marker-layer').then(({ MarkerLayer }) => {
+			if (this.#painter !== painter) return;
+			this.#layer = new MarkerLayer(markerContainer, this.viewport);
+			this.#layer.setMarkers(this.markers);
+			this.#restyle();
+		});
+		let source: SheetSource;
 		try {
-			this.#source = await openSheets(url);
+			source = await this.#opening!;
 		} catch (err) {
 			this.#fail(openFailure(err));
 			return;
 		}
-		if (!this.#painter) {
-			await this.#source.close();
-			return;
-		}
-		await this.#showSheet(this.sheet);
+		if (this.#painter !== painter) return; // detached meanwhile: detach() closes it
+		this.#source = source;
+		await Promise.all([this.#showSheet(this.sheet), layer]);
 	}
 
 	detach() {
@@ -109,8 +124,8 @@ export class BoardState {
 		this.#layer?.destroy();
 		this.#painter = null;
 		this.#layer = null;
-		void this.#source?.close();
 		this.#source = null;
+		this.#opening?.then((source) => source.close()).catch(() => {});
 	}
 
 	#fail(message: string) {
@@ -129,8 +144,9 @@ export class BoardState {
 			}
 			this.#scheduleSettle();
 		} else {
-			this.timings.sharp = ms;
+			const started = performance.now();
 			this.#draw();
+			this.timings.sharp = ms + performance.now() - started;
 		}
 	}
 
@@ -162,6 +178,7 @@ export class BoardState {
 		if (size.width === this.viewport.width && size.height === this.viewport.height) return;
 		const first = this.viewport.width === 0;
 		this.viewport = size;
+		this.#markersChanged = true;
 		if (this.#fitted === 'sheet' || !this.view) this.view = fitSheet(this.page, size);
 		else if (this.#fitted === 'width') this.view = fitWidth(this.page, size);
 		if (first && this.#page) void this.#painter?.paintPicture(size, devicePixelRatio);
@@ -255,8 +272,12 @@ export class BoardState {
 		this.#settle = setTimeout(async () => {
 			if (!this.view || !this.#painter || this.viewport.width === 0) return;
 			this.events.onview?.(this.link(), 'replace');
+			this.#markersChanged = true;
+			this.#requestFrame();
 			const view = this.view;
 			await this.#painter.paintSharp(view, this.viewport, devicePixelRatio);
+			// After the frame that draws it all afresh.
+			await new Promise((done) => requestAnimationFrame(done));
 			if (this.view === view && this.pictureReady) this.idle = true;
 		}, settleMs);
 	}
@@ -272,8 +293,13 @@ export class BoardState {
 	#draw() {
 		const view = this.view;
 		if (!view || this.viewport.width === 0) return;
+		const started = performance.now();
 		this.#painter?.draw(view, this.viewport, devicePixelRatio);
-		this.#layer?.draw({ sheet: this.sheet, view, page: this.page, viewport: this.viewport });
+		const frame = { sheet: this.sheet, view, page: this.page, viewport: this.viewport };
+		if (this.#markersChanged || !this.#layer?.follow(frame)) this.#layer?.draw(frame);
+		this.#markersChanged = false;
+		this.drawTimes.push(performance.now() - started);
+		if (this.drawTimes.length > 2000) this.drawTimes.splice(0, 1000);
 	}
 
 	// ---- Markers: the API the feature and finding pages draw with ----
@@ -332,6 +358,7 @@ export class BoardState {
 	}
 
 	#restyle() {
+		this.#markersChanged = true;
 		this.#layer?.setLooks({
 			selected: this.selected,
 			focused: this.focused,

@@ -38,6 +38,7 @@ export class MarkerLayer {
 	#markers: Marker[] = [];
 	#sprites = new Map<string, HTMLCanvasElement>();
 	#frame: Frame | null = null;
+	readonly #container: HTMLDivElement;
 	#selected: string | null = null;
 	#focused: string | null = null;
 	#highlighted = new Set<string>();
@@ -45,6 +46,8 @@ export class MarkerLayer {
 	drawn = 0;
 
 	constructor(container: HTMLDivElement, size: Size) {
+		this.#container = container;
+		container.style.transformOrigin = '0 0';
 		this.stage = new Konva.Stage({ container, ...size, listening: false });
 		this.#layer = new Konva.Layer({ listening: false });
 		const shape = new Konva.Shape({
@@ -69,9 +72,38 @@ export class MarkerLayer {
 	/** Draws the markers for this frame now (once per animation frame at most). */
 	draw(frame: Frame) {
 		this.#frame = frame;
+		this.#container.style.transform = '';
 		if (this.stage.width() !== frame.viewport.width) this.stage.width(frame.viewport.width);
 		if (this.stage.height() !== frame.viewport.height) this.stage.height(frame.viewport.height);
 		this.#layer.draw();
+	}
+
+	/**
+	 * While the view moves, the markers last drawn are moved and scaled with it as one picture
+	 * (a CSS transform, nothing redrawn); false when that picture is too far off to stand in
+	 * (another sheet or size, or zoomed more than twice in or out) and a draw is needed.
+	 */
+	follow(frame: Frame) {
+		const drawn = this.#frame;
+		if (
+			!drawn ||
+			drawn.sheet !== frame.sheet ||
+			drawn.viewport.width !== frame.viewport.width ||
+			drawn.viewport.height !== frame.viewport.height
+		) {
+			return false;
+		}
+		const k = frame.view.zoom / drawn.view.zoom;
+		if (k < 0.5 || k > 2) return false;
+		const scale = scaleOf(frame.view.zoom);
+		const tx =
+			(frame.viewport.width / 2) * (1 - k) +
+			(drawn.view.centre.x - frame.view.centre.x) * frame.page.width * scale;
+		const ty =
+			(frame.viewport.height / 2) * (1 - k) +
+			(drawn.view.centre.y - frame.view.centre.y) * frame.page.height * scale;
+		this.#container.style.transform = `translate(${tx}px, ${ty}px) scale(${k})`;
+		return true;
 	}
 
 	/** The markers this frame shows, in drawing order. */
@@ -112,7 +144,14 @@ export class MarkerLayer {
 			const at = toScreen(labelPoint(marker.location));
 			const sprite = this.#sprite(marker, look, colour);
 			const size = sprite.width / spriteRatio();
-			context.drawImage(sprite, at.x - size / 2, at.y - size / 2, size, size);
+			// Whole pixels: sharper, and about a third cheaper to draw than fractional ones.
+			context.drawImage(
+				sprite,
+				Math.round(at.x - size / 2),
+				Math.round(at.y - size / 2),
+				size,
+				size
+			);
 		}
 		this.drawn = shown.length;
 	}

@@ -1,19 +1,23 @@
 import type { PDFDocumentProxy, PDFPageProxy } from 'pdfjs-dist';
+import workerUrl from 'pdfjs-dist/build/pdf.worker.min.mjs?url';
 import type { PageSize } from './view';
 
 type PdfJs = typeof import('pdfjs-dist');
 
 let pdfjs: Promise<PdfJs> | undefined;
 
-/** pdf.js and its worker, both served by the app from `_app/immutable` (no CDN), loaded once. */
+/**
+ * pdf.js and its worker, both served by the app from `_app/immutable` (no CDN), loaded once.
+ * The worker is started first, so it boots while the library itself is still loading; every
+ * document of the page shares it.
+ */
 export function loadPdfJs(): Promise<PdfJs> {
-	pdfjs ??= Promise.all([
-		import('pdfjs-dist'),
-		import('pdfjs-dist/build/pdf.worker.min.mjs?url')
-	]).then(([library, worker]) => {
-		library.GlobalWorkerOptions.workerSrc = worker.default;
+	pdfjs ??= (async () => {
+		const worker = new Worker(workerUrl, { type: 'module' });
+		const library = await import('pdfjs-dist');
+		library.GlobalWorkerOptions.workerPort = worker;
 		return library;
-	});
+	})();
 	return pdfjs;
 }
 

@@ -104,6 +104,7 @@ export class SheetPainter {
 			return;
 		}
 		const generation = this.#generation;
+		const started = performance.now();
 		const ratio = viewportPixelRatio(viewport, devicePixelRatio);
 		const region = regionRender(view, this.#size, viewport, ratio);
 		const canvas = document.createElement('canvas');
@@ -114,7 +115,6 @@ export class SheetPainter {
 			offsetX: region.offsetX,
 			offsetY: region.offsetY
 		});
-		const started = performance.now();
 		const task = page.render({ canvas, viewport: pdfViewport, background: paper });
 		this.#sharpTask = task;
 		try {
