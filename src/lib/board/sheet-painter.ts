@@ -3,6 +3,7 @@ import {
 	pageRect,
 	pictureResolution,
 	regionRender,
+	sameView,
 	scaleOf,
 	viewportPixelRatio,
 	visibleBlit,
@@ -36,6 +37,7 @@ export class SheetPainter {
 	#pictureTask: RenderTask | null = null;
 	#sharp: Region | null = null;
 	#sharpTask: RenderTask | null = null;
+	#spare: HTMLCanvasElement | null = null;
 	#generation = 0;
 
 	/** Called when something new can be shown; `timing` says what was drawn and how long it took. */
@@ -107,7 +109,9 @@ export class SheetPainter {
 		const started = performance.now();
 		const ratio = viewportPixelRatio(viewport, devicePixelRatio);
 		const region = regionRender(view, this.#size, viewport, ratio);
-		const canvas = document.createElement('canvas');
+		// Two canvases take turns: the one on screen and the one being drawn.
+		const canvas = this.#spare ?? document.createElement('canvas');
+		this.#spare = null;
 		canvas.width = region.width;
 		canvas.height = region.height;
 		const pdfViewport = page.getViewport({
@@ -123,11 +127,13 @@ export class SheetPainter {
 			if (!cancelled(err) && generation === this.#generation) {
 				this.onfailed(`The sharp view could not be drawn: ${(err as Error).message}`);
 			}
+			this.#spare = canvas;
 			return;
 		} finally {
 			if (this.#sharpTask === task) this.#sharpTask = null;
 		}
 		if (generation !== this.#generation) return;
+		this.#spare = this.#sharp?.canvas ?? null;
 		this.#sharp = { canvas, view, viewport: { ...viewport } };
 		this.onpainted('sharp', performance.now() - started);
 	}
@@ -150,7 +156,23 @@ export class SheetPainter {
 		context.setTransform(ratio, 0, 0, ratio, 0, 0);
 		context.fillStyle = surround;
 		context.fillRect(0, 0, viewport.width, viewport.height);
+		const sharp = this.#sharp;
 		const rect = pageRect(view, this.#size, viewport);
+		if (
+			sharp &&
+			sameView(sharp.view, view) &&
+			sharp.viewport.width === viewport.width &&
+			sharp.viewport.height === viewport.height
+		) {
+			// The sharp drawing is exactly this view: copy it, nothing under it shows.
+			context.save();
+			context.beginPath();
+			context.rect(rect.x, rect.y, rect.width, rect.height);
+			context.clip();
+			context.drawImage(sharp.canvas, 0, 0, viewport.width, viewport.height);
+			context.restore();
+			return;
+		}
 		const picture = this.#picture;
 		if (!picture) {
 			context.fillStyle = paper;
@@ -168,8 +190,12 @@ export class SheetPainter {
 				}
 			: rect;
 		this.#blit(context, picture.canvas, target, viewport);
-		const sharp = this.#sharp;
 		if (sharp) {
+			// pdf.js paints its background over the whole canvas: keep to the page.
+			context.save();
+			context.beginPath();
+			context.rect(rect.x, rect.y, rect.width, rect.height);
+			context.clip();
 			const then = pageRect(sharp.view, this.#size, sharp.viewport);
 			const k = rect.width / then.width;
 			this.#blit(
@@ -183,6 +209,7 @@ export class SheetPainter {
 				},
 				viewport
 			);
+			context.restore();
 		}
 	}
 
