@@ -3,7 +3,6 @@
 // panning and zooming with 2,000 markers against a naive Konva layer that redraws every marker
 // each frame; the sharp region at 800 % against pdf.js alone drawing that region. Run with
 // `npm run bench:board` after `npm run build`. Prints figures, then one line of JSON.
-import { spawn } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
@@ -11,10 +10,10 @@ import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import type { Marker } from '../src/lib/board/markers';
 import { regionRender } from '../src/lib/board/view';
-import { uploadBoardDrawing, waitForSheet } from '../tests/e2e/board-drawing';
+import { settled, uploadBoardDrawing, waitForSheet } from '../tests/e2e/board-drawing';
 import { launchBrowser, signIn } from '../tests/e2e/browser';
-import { freePort } from '../tests/e2e/global-setup';
 import { alonePath, renderAlone, routePdfjsAlone } from '../tests/e2e/pdfjs-alone';
+import { startApp } from './app';
 import { naivePage } from './board-naive';
 
 const runs = Number(process.env.BENCH_RUNS || 5);
@@ -23,30 +22,8 @@ const buildDir = process.env.BUILD_DIR || 'build';
 if (!existsSync(`${buildDir}/handler.js`)) throw new Error('No build: run `npm run build` first');
 
 const dir = mkdtempSync(join(tmpdir(), 'checkplate-bench-board-'));
-const port = await freePort();
-const app = spawn(process.execPath, ['scripts/start.js'], {
-	env: {
-		...process.env,
-		DATA_DIR: join(dir, 'data'),
-		PORT: String(port),
-		HOST: '127.0.0.1',
-		DEMO_PASSWORD: 'demo-password-for-tests',
-		DATABASE_URL: '',
-		S3_ENDPOINT: '',
-		SMTP_URL: '',
-		SKIP_BUILD: '1'
-	},
-	stdio: ['ignore', 'pipe', 'inherit']
-});
-let output = '';
-const baseUrl = await new Promise<string>((resolve, reject) => {
-	app.stdout!.on('data', (chunk: Buffer) => {
-		output += chunk.toString();
-		const match = /running at (http:\/\/\S+)/.exec(output);
-		if (match) resolve(match[1]);
-	});
-	app.once('exit', (code) => reject(new Error(`app exited ${code}\n${output}`)));
-});
+const server = await startApp(dir, { DEMO_PASSWORD: 'demo-password-for-tests' });
+const { baseUrl } = server;
 
 const median = (values: number[]) => percentile(values, 50);
 function percentile(values: number[], p: number) {
@@ -173,7 +150,7 @@ try {
 			cssHeight: view.viewport.height
 		});
 		if (run > 0) {
-			regionOurs.push(view.sharp);
+			regionOurs.push(view.timings.sharp);
 			regionAlone.push(aloneMs);
 		}
 	}
@@ -223,8 +200,7 @@ try {
 	console.log(JSON.stringify(result));
 } finally {
 	await browser.close();
-	app.kill('SIGINT');
-	await new Promise((done) => app.once('exit', done));
+	await server.stop();
 	rmSync(dir, { recursive: true, force: true });
 }
 
@@ -248,35 +224,6 @@ function scatter(count: number): Marker[] {
 			outline: area ? 'cloud' : undefined,
 			location: area ? { sheet: 1, x, y, w: 0.04, h: 0.03 } : { sheet: 1, x, y }
 		} satisfies Marker;
-	});
-}
-
-async function settled(page: Page) {
-	await waitForSheet(page);
-	await page.waitForFunction(
-		() =>
-			(document.querySelector('[data-board]') as HTMLElement & { board: { idle: boolean } }).board
-				.idle
-	);
-	return page.evaluate(() => {
-		const b = (
-			document.querySelector('[data-board]') as HTMLElement & {
-				board: {
-					view: { zoom: number; centre: { x: number; y: number } };
-					page: { width: number; height: number };
-					viewport: { width: number; height: number };
-					timings: { sharp: number };
-				};
-			}
-		).board;
-		return JSON.parse(
-			JSON.stringify({ view: b.view, page: b.page, viewport: b.viewport, sharp: b.timings.sharp })
-		) as {
-			view: { zoom: number; centre: { x: number; y: number } };
-			page: { width: number; height: number };
-			viewport: { width: number; height: number };
-			sharp: number;
-		};
 	});
 }
 

@@ -1,13 +1,13 @@
 // A 100 MB drawing through the app (busboy → temp file → checks → lib-storage) against the same
 // bytes put straight into the bucket with lib-storage, in one run: MB/s, their ratio, and the
 // peak memory growth of each process. Run with `npm run bench:upload`. Linux only (/proc).
-import { spawn, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, statSync, writeFileSync, createReadStream } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Readable } from 'node:stream';
 import { bulkyPdf } from '../tests/fixtures/pdfs';
-import { freePort } from '../tests/e2e/global-setup';
+import { startApp } from './app';
 import { peakGrowth, resetPeak, rssBytes } from './memory';
 
 const megabytes = Number(process.env.BENCH_MB || 100);
@@ -19,30 +19,12 @@ writeFileSync(file, await bulkyPdf(megabytes * 1_000_000));
 const size = statSync(file).size;
 const mb = size / 1_000_000;
 
-const port = await freePort();
-const app = spawn(process.execPath, ['scripts/start.js'], {
-	env: {
-		...process.env,
-		DATA_DIR: join(dir, 'data'),
-		PORT: String(port),
-		HOST: '127.0.0.1',
-		DEMO_PASSWORD: 'bench-password-1',
-		MAX_UPLOAD_MB: String(megabytes + 10),
-		DATABASE_URL: '',
-		S3_ENDPOINT: '',
-		SMTP_URL: ''
-	},
-	stdio: ['ignore', 'pipe', 'inherit']
+const server = await startApp(dir, {
+	DEMO_PASSWORD: 'bench-password-1',
+	MAX_UPLOAD_MB: String(megabytes + 10)
 });
-let output = '';
-const baseUrl = await new Promise<string>((resolve, reject) => {
-	app.stdout!.on('data', (chunk: Buffer) => {
-		output += chunk.toString();
-		const match = /running at (http:\/\/\S+)/.exec(output);
-		if (match) resolve(match[1]);
-	});
-	app.once('exit', (code) => reject(new Error(`app exited ${code}\n${output}`)));
-});
+const { app, baseUrl } = server;
+const output = server.output();
 const s3Endpoint = /S3 stand-in\s+(\S+)/.exec(output)![1];
 const serverPid = Number(
 	spawnSync('pgrep', ['-P', String(app.pid), '-f', 'index.js'], { encoding: 'utf8' }).stdout.trim()
@@ -123,8 +105,7 @@ const rawResult = JSON.parse(raw.stdout.trim().split('\n').at(-1)!) as {
 	growth: number;
 };
 
-app.kill('SIGINT');
-await new Promise((done) => app.once('exit', done));
+await server.stop();
 rmSync(dir, { recursive: true, force: true });
 
 const MiB = 1024 * 1024;

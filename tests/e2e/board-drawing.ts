@@ -46,3 +46,36 @@ export async function waitForSheet(page: Page) {
 		return root?.board?.pictureReady === true;
 	});
 }
+
+export interface BoardFacts {
+	sheet: number;
+	view: { zoom: number; centre: { x: number; y: number } };
+	viewport: { width: number; height: number };
+	page: { width: number; height: number };
+	zoomPercent: number;
+	idle: boolean;
+	timings: { firstSheet: number; picture: number; sharp: number };
+}
+
+/** What the board shows, read from the board object on its element. */
+export function boardFacts(page: Page): Promise<BoardFacts> {
+	return page.evaluate(() => {
+		const board = (document.querySelector('[data-board]') as HTMLElement & { board: BoardFacts })
+			.board;
+		const { sheet, view, viewport, page, zoomPercent, idle, timings } = board;
+		return JSON.parse(
+			JSON.stringify({ sheet, view, viewport, page, zoomPercent, idle, timings })
+		) as BoardFacts;
+	});
+}
+
+/** Waits until the view stopped and its sharp drawing (if any) is on screen. */
+export async function settled(page: Page) {
+	await waitForSheet(page);
+	await page.waitForFunction(
+		() =>
+			(document.querySelector('[data-board]') as HTMLElement & { board: { idle: boolean } }).board
+				.idle
+	);
+	return boardFacts(page);
+}

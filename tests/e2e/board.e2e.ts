@@ -4,7 +4,7 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { regionRender } from '../../src/lib/board/view';
 import type { Marker } from '../../src/lib/board/markers';
 import { a0, boardTargets } from '../fixtures/pdfs';
-import { uploadBoardDrawing, waitForSheet } from './board-drawing';
+import { boardFacts as facts, settled, uploadBoardDrawing } from './board-drawing';
 import { artifactsDir, launchBrowser, screenshot, signIn, watchOutsideRequests } from './browser';
 import { alonePath, renderAlone, routePdfjsAlone } from './pdfjs-alone';
 import { colourCentre, comparePngs } from './pixels';
@@ -15,44 +15,6 @@ let browser: Browser;
 let context: BrowserContext;
 let boardPath: string;
 let fileUrl: string;
-
-interface BoardFacts {
-	sheet: number;
-	view: { zoom: number; centre: { x: number; y: number } };
-	viewport: { width: number; height: number };
-	page: { width: number; height: number };
-	zoomPercent: number;
-	idle: boolean;
-}
-
-/** What the board shows, read from the marker API on its element. */
-function facts(page: Page): Promise<BoardFacts> {
-	return page.evaluate(() => {
-		const board = (document.querySelector('[data-board]') as HTMLElement & { board: BoardFacts })
-			.board;
-		return JSON.parse(
-			JSON.stringify({
-				sheet: board.sheet,
-				view: board.view,
-				viewport: board.viewport,
-				page: (board as unknown as { page: BoardFacts['page'] }).page,
-				zoomPercent: board.zoomPercent,
-				idle: board.idle
-			})
-		);
-	});
-}
-
-/** Waits until the view stopped and its sharp drawing (if any) is on screen. */
-async function settled(page: Page) {
-	await waitForSheet(page);
-	await page.waitForFunction(
-		() =>
-			(document.querySelector('[data-board]') as HTMLElement & { board: { idle: boolean } }).board
-				.idle
-	);
-	return facts(page);
-}
 
 async function addMarkers(page: Page, markers: Marker[]) {
 	await page.evaluate((markers) => {

@@ -1,4 +1,5 @@
 import type { PDFDocumentProxy, PDFPageProxy } from 'pdfjs-dist';
+import libraryUrl from 'pdfjs-dist/build/pdf.min.mjs?url';
 import workerUrl from 'pdfjs-dist/build/pdf.worker.min.mjs?url';
 import type { PageSize } from './view';
 
@@ -7,14 +8,19 @@ type PdfJs = typeof import('pdfjs-dist');
 let pdfjs: Promise<PdfJs> | undefined;
 
 /**
- * pdf.js and its worker, both served by the app from `_app/immutable` (no CDN), loaded once.
- * The worker is started first, so it boots while the library itself is still loading; every
- * document of the page shares it.
+ * pdf.js's own built files, served by the app from `_app/immutable` (no CDN). The page names
+ * the library in a `modulepreload` link, so the browser fetches it while the app starts.
+ */
+export const pdfjsFiles = { library: libraryUrl, worker: workerUrl };
+
+/**
+ * pdf.js and its worker, loaded once. The worker is started first, so it boots while the
+ * library itself is still loading; every document of the page shares it.
  */
 export function loadPdfJs(): Promise<PdfJs> {
 	pdfjs ??= (async () => {
 		const worker = new Worker(workerUrl, { type: 'module' });
-		const library = await import('pdfjs-dist');
+		const library = (await import(/* @vite-ignore */ libraryUrl)) as PdfJs;
 		library.GlobalWorkerOptions.workerPort = worker;
 		return library;
 	})();

@@ -76,19 +76,25 @@ export class SheetPainter {
 		const started = performance.now();
 		const task = page.render({ canvas, viewport: pdfViewport, background: paper });
 		this.#pictureTask = task;
-		try {
-			await task.promise;
-		} catch (err) {
-			if (!cancelled(err) && generation === this.#generation) {
-				this.onfailed(`This sheet could not be drawn: ${(err as Error).message}`);
-			}
-			return;
-		} finally {
-			if (this.#pictureTask === task) this.#pictureTask = null;
-		}
-		if (generation !== this.#generation) return;
+		const done = await this.#finish(task, 'This sheet could not be drawn');
+		if (this.#pictureTask === task) this.#pictureTask = null;
+		if (!done || generation !== this.#generation) return;
 		this.#picture = { canvas, resolution };
 		this.onpainted('picture', performance.now() - started);
+	}
+
+	/** Waits for a drawing; false when it was cancelled or failed (a failure is reported). */
+	async #finish(task: RenderTask, failure: string) {
+		const generation = this.#generation;
+		try {
+			await task.promise;
+			return true;
+		} catch (err) {
+			if (!cancelled(err) && generation === this.#generation) {
+				this.onfailed(`${failure}: ${(err as Error).message}`);
+			}
+			return false;
+		}
 	}
 
 	/** True when the whole-sheet picture already shows this view at full sharpness. */
@@ -121,18 +127,12 @@ export class SheetPainter {
 		});
 		const task = page.render({ canvas, viewport: pdfViewport, background: paper });
 		this.#sharpTask = task;
-		try {
-			await task.promise;
-		} catch (err) {
-			if (!cancelled(err) && generation === this.#generation) {
-				this.onfailed(`The sharp view could not be drawn: ${(err as Error).message}`);
-			}
+		const done = await this.#finish(task, 'The sharp view could not be drawn');
+		if (this.#sharpTask === task) this.#sharpTask = null;
+		if (!done || generation !== this.#generation) {
 			this.#spare = canvas;
 			return;
-		} finally {
-			if (this.#sharpTask === task) this.#sharpTask = null;
 		}
-		if (generation !== this.#generation) return;
 		this.#spare = this.#sharp?.canvas ?? null;
 		this.#sharp = { canvas, view, viewport: { ...viewport } };
 		this.onpainted('sharp', performance.now() - started);
