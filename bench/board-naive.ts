@@ -1,15 +1,15 @@
 // The yardstick for bench/board.ts: the obvious way to put markers over a sheet. pdf.js draws
 // the sheet once and it is moved by a CSS transform; every marker is a Konva group (disc and
 // label) that is moved and redrawn, all 2,000 of them, on every frame the view changes.
-export const naivePage = `<!doctype html>
+export const naivePage = (pdfjs: { library: string; worker: string }) => `<!doctype html>
 <html><head><meta charset="utf-8">
 <style>body{margin:0}#viewport{position:relative;width:1240px;height:700px;overflow:hidden;background:#e9ecf0;touch-action:none}
 #sheet{position:absolute;left:0;top:0;transform-origin:0 0}#stage{position:absolute;inset:0}</style>
 <script src="./konva.js"></script></head>
 <body><div id="viewport"><canvas id="sheet"></canvas><div id="stage"></div></div>
 <script type="module">
-import * as pdfjs from '/__pdfjs-alone/pdf.mjs';
-pdfjs.GlobalWorkerOptions.workerSrc = '/__pdfjs-alone/pdf.worker.mjs';
+import * as pdfjs from '${pdfjs.library}';
+pdfjs.GlobalWorkerOptions.workerSrc = '${pdfjs.worker}';
 const element = document.getElementById('viewport');
 const width = element.clientWidth, height = element.clientHeight;
 const file = new URLSearchParams(location.search).get('file');

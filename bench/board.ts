@@ -12,7 +12,7 @@ import type { Marker } from '../src/lib/board/markers';
 import { regionRender } from '../src/lib/board/view';
 import { settled, uploadBoardDrawing, waitForSheet } from '../tests/e2e/board-drawing';
 import { launchBrowser, signIn } from '../tests/e2e/browser';
-import { alonePath, renderAlone, routePdfjsAlone } from '../tests/e2e/pdfjs-alone';
+import { openPdfjsAlone, renderAlone, servedPdfjs } from '../tests/e2e/pdfjs-alone';
 import { startApp } from './app';
 import { naivePage } from './board-naive';
 
@@ -37,14 +37,9 @@ try {
 		viewport: { width: 1280, height: 900 },
 		deviceScaleFactor: 1
 	});
-	await routePdfjsAlone(context, baseUrl);
+	// Nothing is intercepted on the board's pages: interception slows every request.
 	const konva = readFileSync(
 		join(createRequire(import.meta.url).resolve('konva'), '../../konva.min.js')
-	);
-	await context.route(`${baseUrl}/__naive/**`, (route) =>
-		route.request().url().endsWith('konva.js')
-			? route.fulfill({ contentType: 'text/javascript', body: konva })
-			: route.fulfill({ contentType: 'text/html', body: naivePage })
 	);
 	const setup = await context.newPage();
 	await signIn(setup, baseUrl, 'drafter@example.test');
@@ -69,8 +64,10 @@ try {
 		});
 		await page.close();
 		const yardstick = await context.newPage();
-		await yardstick.goto(
-			`${baseUrl}${alonePath}first.html?file=${encodeURIComponent(fileUrl)}&fit=${box.width},${box.height}`
+		await openPdfjsAlone(
+			yardstick,
+			baseUrl,
+			`first.html?file=${encodeURIComponent(fileUrl)}&fit=${box.width},${box.height}`
 		);
 		await yardstick.waitForFunction(() => performance.getEntriesByName('alone:first-sheet').length);
 		const aloneMark = await yardstick.evaluate(
@@ -113,6 +110,11 @@ try {
 				.board.markersDrawn
 	);
 	const naive = await context.newPage();
+	await naive.route(`${baseUrl}/__naive/**`, (route) =>
+		route.request().url().endsWith('konva.js')
+			? route.fulfill({ contentType: 'text/javascript', body: konva })
+			: route.fulfill({ contentType: 'text/html', body: naivePage(servedPdfjs()) })
+	);
 	await naive.goto(`${baseUrl}/__naive/index.html?file=${encodeURIComponent(fileUrl)}`);
 	await naive.waitForFunction(() => (window as unknown as { naiveReady?: boolean }).naiveReady);
 	await naive.evaluate((markers) => {
@@ -128,7 +130,7 @@ try {
 	const regionOurs: number[] = [];
 	const regionAlone: number[] = [];
 	const yardstick = await context.newPage();
-	await yardstick.goto(`${baseUrl}${alonePath}region.html`);
+	await openPdfjsAlone(yardstick, baseUrl, 'region.html');
 	for (let run = 0; run <= runs; run++) {
 		// pdf.js draws in animation-frame slices, which a page behind another one does not get.
 		await board.bringToFront();

@@ -6,7 +6,7 @@ import type { Marker } from '../../src/lib/board/markers';
 import { a0, boardTargets } from '../fixtures/pdfs';
 import { boardFacts as facts, settled, uploadBoardDrawing } from './board-drawing';
 import { artifactsDir, launchBrowser, screenshot, signIn, watchOutsideRequests } from './browser';
-import { alonePath, renderAlone, routePdfjsAlone } from './pdfjs-alone';
+import { openPdfjsAlone, renderAlone } from './pdfjs-alone';
 import { colourCentre, comparePngs } from './pixels';
 
 const baseUrl = inject('baseUrl');
@@ -49,7 +49,6 @@ const critical: [number, number, number] = [0xb4, 0x23, 0x18];
 beforeAll(async () => {
 	browser = await launchBrowser();
 	context = await browser.newContext({ viewport: size, deviceScaleFactor: 1 });
-	await routePdfjsAlone(context, baseUrl);
 	const page = await context.newPage();
 	await signIn(page, baseUrl, 'drafter@example.test');
 	const number = `BRD-${Date.now() % 100000}`;
@@ -77,7 +76,7 @@ describe('the board', () => {
 		expect(fit.zoomPercent).toBeLessThan(30);
 		const box = (await page.locator('[data-board-viewport]').boundingBox())!;
 		const alone = await context.newPage();
-		await alone.goto(`${baseUrl}${alonePath}region.html`);
+		await openPdfjsAlone(alone, baseUrl, 'region.html');
 
 		// Whole sheet: the picture is drawn at this scale and placed on whole pixels.
 		const fitRegion = regionRender(fit.view, fit.page, fit.viewport, 1);

@@ -1,18 +1,28 @@
-import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { dirname, join } from 'node:path';
-import type { BrowserContext, Page } from 'playwright-core';
+import { readdirSync } from 'node:fs';
+import type { Page } from 'playwright-core';
 
-const require = createRequire(import.meta.url);
-const pdfjsBuild = join(dirname(require.resolve('pdfjs-dist/package.json')), 'build');
+/** pdf.js's two files as the built app serves them (the very bytes the board loads). */
+export function servedPdfjs() {
+	const assets = `${process.env.BUILD_DIR || 'build'}/client/_app/immutable/assets`;
+	const files = readdirSync(assets);
+	const find = (pattern: RegExp) => {
+		const name = files.find((file) => pattern.test(file));
+		if (!name) throw new Error(`pdf.js is not in ${assets}: build the app first`);
+		return `/_app/immutable/assets/${name}`;
+	};
+	return {
+		library: find(/^pdf\.min\.[\w-]+\.mjs$/),
+		worker: find(/^pdf\.worker\.min\.[\w-]+\.mjs$/)
+	};
+}
 
 /** The yardstick page: pdf.js alone, same options as the board, nothing else on the page. */
-const html = `<!doctype html>
+const yardstickHtml = (files: { library: string; worker: string }) => `<!doctype html>
 <html><head><meta charset="utf-8"><style>body{margin:0;background:#e9ecf0}canvas{display:block}</style></head>
 <body><canvas id="sheet"></canvas>
 <script type="module">
-import * as pdfjs from './pdf.mjs';
-pdfjs.GlobalWorkerOptions.workerSrc = new URL('./pdf.worker.mjs', location.href).href;
+import * as pdfjs from '${files.library}';
+pdfjs.GlobalWorkerOptions.workerSrc = '${files.worker}';
 const options = { isEvalSupported: false, disableAutoFetch: true, disableStream: true };
 const query = new URLSearchParams(location.search);
 let document;
@@ -53,20 +63,18 @@ window.aloneReady = true;
 
 export const alonePath = '/__pdfjs-alone/';
 
-/** Serves the yardstick page and pdf.js from the app's own origin (so the PDF route sees the cookie). */
-export async function routePdfjsAlone(context: BrowserContext, baseUrl: string) {
-	await context.route(`${baseUrl}${alonePath}**`, async (route) => {
-		const name = new URL(route.request().url()).pathname.slice(alonePath.length);
-		if (name === 'pdf.mjs' || name === 'pdf.worker.mjs') {
-			const file = name === 'pdf.mjs' ? 'pdf.min.mjs' : 'pdf.worker.min.mjs';
-			await route.fulfill({
-				contentType: 'text/javascript',
-				body: readFileSync(join(pdfjsBuild, file))
-			});
-		} else {
-			await route.fulfill({ contentType: 'text/html', body: html });
-		}
+/**
+ * Opens the yardstick page at `alonePath` + `name` on the app's own origin (so the PDF route
+ * sees the cookie). Only the page itself is answered by the test; pdf.js comes from the app, and
+ * nothing else is intercepted, so its requests go as fast as the board's.
+ */
+export async function openPdfjsAlone(target: Page, baseUrl: string, name: string) {
+	const html = yardstickHtml(servedPdfjs());
+	const url = `${baseUrl}${alonePath}${name}`;
+	await target.route(url, (route) => route.fulfill({ contentType: 'text/html', body: html }), {
+		times: 1
 	});
+	await target.goto(url);
 }
 
 export interface RegionRequest {

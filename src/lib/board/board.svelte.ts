@@ -92,19 +92,13 @@ export class BoardState {
 		return this.view ? Math.round(this.view.zoom * 100) : null;
 	}
 
-	/** Starts drawing into `canvas` and `markerContainer` (Konva loads beside pdf.js). */
+	/** Starts drawing into `canvas`, and the markers into `markerContainer` once Konva is loaded. */
 	async attach(canvas: HTMLCanvasElement, markerContainer: HTMLDivElement) {
 		const painter = new SheetPainter(canvas);
 		painter.onpainted = (what, ms) => this.#painted(what, ms);
 		painter.onfailed = (message) => this.#fail(message);
 		this.#painter = painter;
 		this.#requestFrame();
-		const layer = import('./marker-layer').then(({ MarkerLayer }) => {
-			if (this.#painter !== painter) return;
-			this.#layer = new MarkerLayer(markerContainer, this.viewport);
-			this.#layer.setMarkers(this.markers);
-			this.#restyle();
-		});
 		let source: SheetSource;
 		try {
 			source = await this.#opening!;
@@ -114,7 +108,14 @@ export class BoardState {
 		}
 		if (this.#painter !== painter) return; // detached meanwhile: detach() closes it
 		this.#source = source;
-		await Promise.all([this.#showSheet(this.sheet), layer]);
+		await this.#showSheet(this.sheet);
+		// Konva is loaded after the first sheet is drawn, so it does not compete with pdf.js.
+		const { MarkerLayer } = await import('./marker-layer');
+		if (this.#painter !== painter) return;
+		this.#layer = new MarkerLayer(markerContainer, this.viewport);
+		this.#layer.setMarkers(this.markers);
+		this.#restyle();
+		this.#scheduleSettle();
 	}
 
 	detach() {
@@ -278,7 +279,7 @@ export class BoardState {
 			await this.#painter.paintSharp(view, this.viewport, devicePixelRatio);
 			// After the frame that draws it all afresh.
 			await new Promise((done) => requestAnimationFrame(done));
-			if (this.view === view && this.pictureReady) this.idle = true;
+			if (this.view === view && this.pictureReady && this.#layer) this.idle = true;
 		}, settleMs);
 	}
 
