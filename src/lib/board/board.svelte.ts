@@ -1,7 +1,15 @@
 import type { PDFPageProxy } from 'pdfjs-dist';
 import { browser } from '$app/environment';
 import type { MarkerLayer } from './marker-layer';
-import { markerAt, markerCentre, movedLocation, readingOrder, type Marker } from './markers';
+import {
+	markerAt,
+	markerCentre,
+	movedLocation,
+	readingOrder,
+	withMarkers,
+	withoutMarkers,
+	type Marker
+} from './markers';
 import { openFailure, openSheets, type SheetSource } from './pdf-document';
 import { SheetPainter } from './sheet-painter';
 import type { ViewLink } from './view-params';
@@ -52,7 +60,7 @@ export class BoardState {
 	selected = $state<string | null>(null);
 	focused = $state<string | null>(null);
 	hovered = $state.raw<{ marker: Marker; at: Point } | null>(null);
-	highlighted = $state.raw(new Set<string>());
+	highlighted = $state.raw<string[]>([]);
 	/** Nothing moving and no drawing under way: what is shown is final (for tests and the bench). */
 	idle = $state(false);
 	/** Figures for tests and the bench: milliseconds of the last picture and sharp drawings. */
@@ -307,14 +315,12 @@ export class BoardState {
 
 	/** Puts these markers on the board, replacing any with the same id. */
 	addMarkers(markers: Marker[]) {
-		const ids = new Set(markers.map((m) => m.id));
-		this.#setMarkers([...this.markers.filter((m) => !ids.has(m.id)), ...markers]);
+		this.#setMarkers(withMarkers(this.markers, markers));
 		if (this.#pendingShow) this.#showPending();
 	}
 
 	removeMarkers(ids: string[]) {
-		const gone = new Set(ids);
-		this.#setMarkers(this.markers.filter((m) => !gone.has(m.id)));
+		this.#setMarkers(withoutMarkers(this.markers, ids));
 	}
 
 	/** Moves a marker (the page decides whether to keep it: `onmove` is called on drop). */
@@ -329,7 +335,7 @@ export class BoardState {
 	}
 
 	highlight(ids: string[]) {
-		this.highlighted = new Set(ids);
+		this.highlighted = ids;
 		this.#restyle();
 	}
 

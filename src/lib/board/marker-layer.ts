@@ -63,10 +63,10 @@ export class MarkerLayer {
 		this.#markers = markers;
 	}
 
-	setLooks(looks: { selected: string | null; focused: string | null; highlighted: Set<string> }) {
+	setLooks(looks: { selected: string | null; focused: string | null; highlighted: string[] }) {
 		this.#selected = looks.selected;
 		this.#focused = looks.focused;
-		this.#highlighted = looks.highlighted;
+		this.#highlighted = new Set(looks.highlighted);
 	}
 
 	/** Draws the markers for this frame now (once per animation frame at most). */

@@ -119,3 +119,14 @@ export function movedLocation(location: MarkerLocation, to: Point): MarkerLocati
 	const y = Math.min(1 - h, Math.max(0, to.y));
 	return { ...location, x, y };
 }
+
+/** `markers` with `added` put in, replacing those with the same id. */
+export function withMarkers(markers: Marker[], added: Marker[]) {
+	const ids = new Set(added.map((m) => m.id));
+	return [...markers.filter((m) => !ids.has(m.id)), ...added];
+}
+
+export function withoutMarkers(markers: Marker[], ids: string[]) {
+	const gone = new Set(ids);
+	return markers.filter((m) => !gone.has(m.id));
+}

@@ -84,3 +84,10 @@ export function writeViewLink(query: URLSearchParams, link: ViewLink): URLSearch
 	if (link.show !== undefined) next.set(viewParams.show, link.show);
 	return next;
 }
+
+/** `href` with the view written into its query, other parameters kept. */
+export function linkedHref(href: string, link: ViewLink): string {
+	const url = new URL(href);
+	url.search = writeViewLink(url.searchParams, link).toString();
+	return url.href;
+}
