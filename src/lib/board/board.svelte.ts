@@ -280,11 +280,12 @@ export class BoardState {
 		clearTimeout(this.#settle);
 		this.#settle = setTimeout(async () => {
 			if (!this.view || !this.#painter || this.viewport.width === 0) return;
-			this.events.onview?.(this.link(), 'replace');
 			this.#markersChanged = true;
 			this.#requestFrame();
 			const view = this.view;
 			await this.#painter.paintSharp(view, this.viewport, devicePixelRatio);
+			// The URL follows once the sharp drawing is done, so its page update does not slow it.
+			if (this.view === view) this.events.onview?.(this.link(), 'replace');
 			// After the frame that draws it all afresh.
 			await new Promise((done) => requestAnimationFrame(done));
 			if (this.view === view && this.pictureReady && this.#layer) this.idle = true;
