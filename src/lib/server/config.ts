@@ -1,4 +1,6 @@
+import { dev } from '$app/environment';
 import { env } from '$env/dynamic/private';
+import { isLoopbackHost } from './loopback.js';
 
 /** Settings read from the environment; every one is documented in .env.example. */
 export const config = {
@@ -25,6 +27,10 @@ export const config = {
 	},
 	get uploadTempDir() {
 		return `${env.DATA_DIR || './data'}/tmp`;
+	},
+	/** Whether the app answers this machine alone (adapter-node binds `HOST`, 0.0.0.0 unless set). */
+	get listensOnLoopbackOnly() {
+		return isLoopbackHost(env.HOST || (dev ? 'localhost' : '0.0.0.0'));
 	},
 	/** Set by `npm start` when the mail fake is in use: where it keeps what it caught. */
 	get mailFakeDir() {
