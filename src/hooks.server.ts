@@ -3,6 +3,7 @@ import { sequence } from '@sveltejs/kit/hooks';
 import { env } from '$env/dynamic/private';
 import { apiErrors } from '$lib/server/api';
 import { authHandle, userFromSession } from '$lib/server/auth';
+import { bodyLimit } from '$lib/server/body-limit';
 import { config } from '$lib/server/config';
 import { db, startDatabase } from '$lib/server/db';
 import { userForApiToken } from '$lib/server/db/queries/api-tokens';
@@ -73,7 +74,14 @@ const currentUser: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(securityHeaders, apiErrors, sameOrigin, authHandle, currentUser);
+export const handle = sequence(
+	securityHeaders,
+	apiErrors,
+	bodyLimit,
+	sameOrigin,
+	authHandle,
+	currentUser
+);
 
 export const handleError: HandleServerError = ({ error, event, status }) => {
 	const errorId = crypto.randomUUID();

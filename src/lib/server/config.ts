@@ -25,6 +25,10 @@ export const config = {
 	get maxUploadBytes() {
 		return Number(env.MAX_UPLOAD_MB || 100) * 1024 * 1024;
 	},
+	/** Largest request body of every route but the upload (`BODY_LIMIT_KB`, default 1024). */
+	get maxBodyBytes() {
+		return Number(env.BODY_LIMIT_KB || 1024) * 1024;
+	},
 	get uploadTempDir() {
 		return `${env.DATA_DIR || './data'}/tmp`;
 	},
