@@ -65,6 +65,7 @@ const sameOrigin: Handle = async ({ event, resolve }) => {
 
 const currentUser: Handle = async ({ event, resolve }) => {
 	const bearer = event.url.pathname.startsWith('/api/') ? bearerOf(event.request) : null;
+	event.locals.viaApiToken = Boolean(bearer);
 	if (bearer) {
 		const user = await userForApiToken(db, bearer);
 		event.locals.user = user ? { id: user.id, name: user.name, email: user.email } : null;

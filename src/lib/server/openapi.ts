@@ -29,7 +29,7 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 	'/me/tokens': {
 		get: { summary: 'Your personal API tokens (never the secrets)', success: 200 },
 		post: {
-			summary: 'Create a token; the secret is in this answer only',
+			summary: 'Create a token (signed in, not with a token); the secret is in this answer only',
 			body: apiTokenInput,
 			success: 201
 		}
