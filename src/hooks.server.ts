@@ -11,7 +11,23 @@ import { demoPassword, demoPeople } from '$lib/server/demo/people';
 import { startOutboxWorker } from '$lib/server/mail/worker';
 import { getStorage } from '$lib/server/services';
 
+/**
+ * An unhandled rejection is a bug (every promise on a request's path must be handled), but it
+ * must not stop the server for everyone: log it loudly instead of Node's default exit. The app
+ * tests fail when this line appears (tests/e2e/global-setup.ts), so no such bug hides there.
+ */
+function logUnhandledRejections() {
+	const key = Symbol.for('checkplate.unhandledRejection');
+	const marked = process as unknown as Record<symbol, boolean>;
+	if (marked[key]) return;
+	marked[key] = true;
+	process.on('unhandledRejection', (reason) => {
+		console.error('[checkplate] UNHANDLED REJECTION (a bug: please report it)', reason);
+	});
+}
+
 export const init: ServerInit = async () => {
+	logUnhandledRejections();
 	const database = await startDatabase();
 	await database.migrate();
 	if (env.SEED_DEMO !== '0') {

@@ -91,5 +91,8 @@ export default async function setup(project: TestProject) {
 	return async () => {
 		await app?.stop();
 		if (dataDir) rmSync(dataDir, { recursive: true, force: true });
+		// The app logs an unhandled rejection rather than stop; in the tests it is a failure.
+		const unhandled = /\[checkplate\] UNHANDLED REJECTION[^\n]*\n?[^\n]*/.exec(app?.output() ?? '');
+		if (unhandled) throw new Error(`The app had an unhandled promise rejection:\n${unhandled[0]}`);
 	};
 }

@@ -19,8 +19,14 @@ const codeForStatus: Record<number, string> = {
  * SvelteKit's `error(status, {message, code, …})`; this puts the body into that shape.
  */
 export const apiErrors: Handle = async ({ event, resolve }) => {
+	const api = event.url.pathname.startsWith('/api/');
+	// SvelteKit answers a route's `error()` as an HTML page unless the client asks for JSON;
+	// a script that sends no Accept header still gets the message.
+	if (api && !event.request.headers.get('accept')?.includes('application/json')) {
+		event.request.headers.set('accept', 'application/json');
+	}
 	const response = await resolve(event);
-	if (!event.url.pathname.startsWith('/api/') || response.status < 400) return response;
+	if (!api || response.status < 400) return response;
 	const type = response.headers.get('content-type') ?? '';
 	if (!type.includes('application/json')) {
 		// An HTML error page (an unknown path, for one) is no message for a script.
