@@ -9,6 +9,7 @@ import { db, startDatabase } from '$lib/server/db';
 import { userForApiToken } from '$lib/server/db/queries/api-tokens';
 import { demoPassword, demoPeople } from '$lib/server/demo/people';
 import { startOutboxWorker } from '$lib/server/mail/worker';
+import { preparePdfCheck } from '$lib/server/pdf';
 import { getStorage } from '$lib/server/services';
 
 /**
@@ -40,6 +41,7 @@ export const init: ServerInit = async () => {
 		);
 	}
 	startOutboxWorker();
+	await preparePdfCheck(config.pdfLimits);
 };
 
 const securityHeaders: Handle = async ({ event, resolve }) => {

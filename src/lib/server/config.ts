@@ -29,6 +29,14 @@ export const config = {
 	get maxBodyBytes() {
 		return Number(env.BODY_LIMIT_KB || 1024) * 1024;
 	},
+	/** Limits of the PDF content check (see pdf.ts): pages, seconds and worker memory. */
+	get pdfLimits() {
+		return {
+			maxPages: Number(env.MAX_PDF_PAGES || 1000),
+			timeoutMs: Number(env.PDF_CHECK_SECONDS || 60) * 1000,
+			memoryMb: Number(env.PDF_CHECK_MEMORY_MB || 512)
+		};
+	},
 	get uploadTempDir() {
 		return `${env.DATA_DIR || './data'}/tmp`;
 	},

@@ -15,6 +15,7 @@ import {
 	listRevisions,
 	RevisionLetterTaken
 } from './db/queries/drawings';
+import { config } from './config';
 import { inspectPdf } from './pdf';
 import type { Storage, StoredObject } from './storage';
 import type { Actor } from './db/queries/activity';
@@ -229,7 +230,7 @@ export async function storeRevision(
 		if (!fields.success) {
 			return refuse(400, 'invalid', fields.error.issues[0]?.message ?? 'Invalid fields');
 		}
-		const pdf = await inspectPdf(upload.path, upload.size);
+		const pdf = await inspectPdf(upload.path, upload.size, config.pdfLimits);
 		if (!pdf.ok) return refuse(pdf.status, pdf.code, pdf.message);
 		const previous = await latestRevision(db, drawing.id);
 		if (previous && previous.sha256 === upload.sha256) {
