@@ -15,8 +15,7 @@ export const workerTask = 'checkplate-pdf-check';
 /**
  * @typedef {{ path: string, size: number, maxPages: number }} CheckInput
  * @typedef {{ width: number, height: number }} Sheet
- * @typedef {{ ok: true, pages: number, sheets: Sheet[] }
- *   | { ok: false, status: 422, code: 'unreadable_pdf' | 'encrypted_pdf' | 'too_many_pages', message: string }} CheckOutput
+ * @typedef {import('./pdf').PdfCheck} CheckOutput
  */
 
 /**
@@ -57,17 +56,52 @@ const encrypted = () => ({
 });
 
 /**
- * Reads the sheets by ranges from disk (a 100 MB drawing is never held whole), refusing a page
- * count over `maxPages` before looking at a single page.
+ * Checks the first and last bytes, then reads the sheets (by ranges from disk for a large file,
+ * so a 100 MB drawing is never held whole), refusing a page count over `maxPages` before looking
+ * at a single page.
  * @param {CheckInput} input
  * @returns {Promise<CheckOutput>}
  */
 async function check({ path, size, maxPages }) {
+	if (size === 0) return { ok: false, status: 415, code: 'not_pdf', message: 'The file is empty.' };
+	const file = await open(path, 'r');
+	try {
+		const head = (await readAt(file, 0, Math.min(size, 1024))).toString('latin1');
+		if (!head.includes('%PDF-')) {
+			return {
+				ok: false,
+				status: 415,
+				code: 'not_pdf',
+				message: 'This is not a PDF: the file does not start like one, whatever its name says.'
+			};
+		}
+		const tailLength = Math.min(size, 2048);
+		const tail = (await readAt(file, size - tailLength, tailLength)).toString('latin1');
+		if (!tail.includes('%%EOF')) {
+			return {
+				ok: false,
+				status: 422,
+				code: 'unreadable_pdf',
+				message: 'The PDF ends early (no end-of-file marker): it looks truncated. Upload it again.'
+			};
+		}
+		return await readSheets(file, size, maxPages);
+	} finally {
+		await file.close();
+	}
+}
+
+/**
+ * @param {import('node:fs/promises').FileHandle} file
+ * @param {number} size
+ * @param {number} maxPages
+ * @returns {Promise<CheckOutput>}
+ */
+async function readSheets(file, size, maxPages) {
 	const { getDocument, PDFDataRangeTransport } = await loadPdfjs();
 	const require = createRequire(import.meta.url);
 	const pdfjsRoot = dirname(require.resolve('pdfjs-dist/package.json'));
 	const standardFontDataUrl = pathToFileURL(join(pdfjsRoot, 'standard_fonts')).href + '/';
-	const file = await open(path, 'r');
 	/** @type {Parameters<typeof getDocument>[0] & object} */
 	const source = {
 		disableAutoFetch: true,
@@ -125,7 +159,6 @@ async function check({ path, size, maxPages }) {
 		};
 	} finally {
 		await task.destroy();
-		await file.close();
 	}
 }
 

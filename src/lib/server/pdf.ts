@@ -1,4 +1,3 @@
-import { open, type FileHandle } from 'node:fs/promises';
 import { Worker } from 'node:worker_threads';
 
 export interface PdfFacts {
@@ -25,43 +24,12 @@ export interface PdfLimits {
 	memoryMb: number;
 }
 
-async function readAt(file: FileHandle, position: number, length: number) {
-	const buffer = Buffer.alloc(length);
-	const { bytesRead } = await file.read(buffer, 0, length, position);
-	return buffer.subarray(0, bytesRead);
-}
-
 /**
- * Checks a stored upload by its content and reads its sheets. The quick checks of the first and
- * last bytes run here; pdf.js runs in a worker thread with a time limit and a memory cap, so a
- * hostile file (thousands of pages, deep object trees) costs that worker, never the server.
+ * Checks a stored upload by its content and reads its sheets. It all runs in a worker thread
+ * (pdf-worker.js) with a time limit and a memory cap, so a hostile file (thousands of pages,
+ * deep object trees) costs that worker, never the server.
  */
 export async function inspectPdf(path: string, size: number, limits: PdfLimits): Promise<PdfCheck> {
-	if (size === 0) return { ok: false, status: 415, code: 'not_pdf', message: 'The file is empty.' };
-	const file = await open(path, 'r');
-	try {
-		const head = (await readAt(file, 0, Math.min(size, 1024))).toString('latin1');
-		if (!head.includes('%PDF-')) {
-			return {
-				ok: false,
-				status: 415,
-				code: 'not_pdf',
-				message: 'This is not a PDF: the file does not start like one, whatever its name says.'
-			};
-		}
-		const tailLength = Math.min(size, 2048);
-		const tail = (await readAt(file, size - tailLength, tailLength)).toString('latin1');
-		if (!tail.includes('%%EOF')) {
-			return {
-				ok: false,
-				status: 422,
-				code: 'unreadable_pdf',
-				message: 'The PDF ends early (no end-of-file marker): it looks truncated. Upload it again.'
-			};
-		}
-	} finally {
-		await file.close();
-	}
 	return inWorker({ path, size, maxPages: limits.maxPages }, limits);
 }
 
