@@ -9,34 +9,11 @@ import { join } from 'node:path';
 import { manyPagePdf } from '../tests/fixtures/pdfs';
 import { demoPassword } from '../tests/e2e/browser';
 import { startApp } from '../tests/e2e/global-setup';
+import { apiTokenFor } from './api-token';
 
 const pages = 20_000;
 const pdf = manyPagePdf(pages);
 const probe = `/api/v1/calc/size?callout=${encodeURIComponent('Ø25 H7')}&units=mm&standard=iso`;
-
-async function tokenFor(baseUrl: string) {
-	const signIn = await fetch(`${baseUrl}/signin?/password`, {
-		method: 'POST',
-		headers: {
-			origin: baseUrl,
-			'content-type': 'application/x-www-form-urlencoded',
-			accept: 'application/json',
-			'x-sveltekit-action': 'true'
-		},
-		body: new URLSearchParams({ email: 'drafter@example.test', password: demoPassword }),
-		redirect: 'manual'
-	});
-	const cookie = signIn.headers
-		.getSetCookie()
-		.map((c) => c.split(';')[0])
-		.join('; ');
-	const created = await fetch(`${baseUrl}/api/v1/me/tokens`, {
-		method: 'POST',
-		headers: { cookie, origin: baseUrl, 'content-type': 'application/json' },
-		body: JSON.stringify({ name: 'bench' })
-	});
-	return ((await created.json()) as { token: string }).token;
-}
 
 /** Latencies (ms) of the probe, one after another, until `until` settles (or `count` done). */
 async function probeWhile(baseUrl: string, until: Promise<unknown> | null, count = 40) {
@@ -57,7 +34,7 @@ async function run(env: Record<string, string>) {
 	const dir = mkdtempSync(join(tmpdir(), 'checkplate-bench-'));
 	const app = await startApp(dir, env);
 	try {
-		const token = await tokenFor(app.baseUrl);
+		const token = await apiTokenFor(app.baseUrl, 'drafter@example.test', demoPassword);
 		const auth = { authorization: `Bearer ${token}` };
 		const number = `BENCH-${Date.now()}`;
 		await fetch(`${app.baseUrl}/api/v1/teams/kestrel/drawings`, {
