@@ -15,7 +15,7 @@ import { getStorage } from '$lib/server/services';
 /**
  * An unhandled rejection is a bug (every promise on a request's path must be handled), but it
  * must not stop the server for everyone: log it loudly instead of Node's default exit. The app
- * tests fail when this line appears (tests/e2e/global-setup.ts), so no such bug hides there.
+ * tests fail when this line appears (tests/app/unhandled.ts), so no such bug hides there.
  */
 function logUnhandledRejections() {
 	const key = Symbol.for('checkplate.unhandledRejection');
