@@ -177,11 +177,10 @@ export async function receiveUpload(
 	if (!parsed.ok && broken && !broken.destroyed) broken.destroy(parsed.error as Error);
 	const copied = copying ? await settle(copying as Promise<Copied>) : null;
 
+	// Removing a key that was never written is harmless; one written but refused must go.
 	const discard = async () => {
 		await rm(path, { force: true });
-		if (copied?.ok && copied.value.stored) {
-			await options.store!.storage.remove(copied.value.stored.key).catch(() => {});
-		}
+		if (options.store) await options.store.storage.remove(options.store.key).catch(() => {});
 	};
 	const mb = Math.round(options.maxBytes / 1024 / 1024);
 	if (tooLarge || (!parsed.ok && (parsed.error as { status?: number }).status === 413)) {
