@@ -1,13 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import {
-	bearerCall,
-	caughtMail,
-	Client,
-	linkIn,
-	newVerifiedUser,
-	unique,
-	waitForMail
-} from './client';
+import { caughtMail, linkIn, unique, waitForMail } from '../shared';
+import { bearerCall, Client, newVerifiedUser } from './client';
 
 const attackerPassword = 'attacker knows this one';
 const ownerPassword = 'the owner chose this';

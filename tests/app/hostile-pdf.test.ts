@@ -1,6 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { manyPagePdf, twoSheetPdf } from '../fixtures/pdfs';
-import { baseUrl, Client, unique } from './client';
+import { unique } from '../shared';
+import { baseUrl, Client } from './client';
 
 let token = '';
 let path = '';

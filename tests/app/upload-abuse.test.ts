@@ -1,7 +1,8 @@
 import { request as httpRequest } from 'node:http';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { twoSheetPdf } from '../fixtures/pdfs';
-import { baseUrl, bearerCall, Client, leftovers, unique } from './client';
+import { unique } from '../shared';
+import { baseUrl, bearerCall, Client, leftovers } from './client';
 
 let token = '';
 let path = '';
