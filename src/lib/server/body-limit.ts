@@ -7,34 +7,31 @@ const uploadRoutes = new Set(['POST /api/v1/teams/[team]/drawings/[number]/revis
 const isUpload = (event: RequestEvent) =>
 	uploadRoutes.has(`${event.request.method} ${event.route.id}`);
 
-function tooLarge(event: RequestEvent, limit: number, close: boolean) {
+/**
+ * Answers 413 at once, while the rest of the body is read and dropped behind the answer (up to
+ * a cap, then the connection is cut): a client still sending then reads the 413 rather than a
+ * stalled or broken connection, and the connection serves its next request.
+ */
+function tooLarge(event: RequestEvent, limit: number, body: ReadableStream<Uint8Array>) {
+	void drain(body.getReader(), drainCap(limit));
 	const message = `The request body is larger than the ${Math.round(limit / 1024)} KB limit.`;
-	// Past the cap the rest is not read: this connection carries no further request.
-	const init = { status: 413, headers: close ? { connection: 'close' } : undefined };
 	return event.url.pathname.startsWith('/api/') ||
 		event.request.headers.get('accept')?.includes('application/json')
-		? json({ error: { code: 'too_large', message } }, init)
-		: text(message, init);
+		? json({ error: { code: 'too_large', message } }, { status: 413 })
+		: text(message, { status: 413 });
 }
 
-/**
- * Reads and drops what a refused client still sends, so that it reads the 413 rather than a
- * broken connection; past `cap` bytes it stops reading. Returns whether the body ended.
- */
 async function drain(reader: ReadableStreamDefaultReader<Uint8Array>, cap: number) {
 	let size = 0;
 	try {
 		for (;;) {
 			const { done, value } = await reader.read();
-			if (done) return true;
+			if (done) return;
 			size += value.byteLength;
-			if (size > cap) {
-				await reader.cancel();
-				return false;
-			}
+			if (size > cap) return void (await reader.cancel());
 		}
 	} catch {
-		return false; // the client went away
+		// the client went away
 	}
 }
 
@@ -42,9 +39,9 @@ const drainCap = (limit: number) => 16 * limit;
 
 /**
  * Every request body but an upload's is small (`BODY_LIMIT_KB`, 1 MB by default): a declared
- * length over it is refused before a byte is read, and a body of unknown length (chunked) is
- * read up to the limit and refused once it passes it (the rest is dropped, up to a cap).
- * adapter-node's own `BODY_SIZE_LIMIT` (set by `npm start` from `MAX_UPLOAD_MB`) bounds uploads.
+ * length over it gets 413 at once, and a body of unknown length (chunked) is read up to the
+ * limit and refused once it passes it. adapter-node's own `BODY_SIZE_LIMIT` (set by `npm start`
+ * from `MAX_UPLOAD_MB`) bounds uploads.
  */
 export const bodyLimit: Handle = async ({ event, resolve }) => {
 	const { request } = event;
@@ -52,10 +49,8 @@ export const bodyLimit: Handle = async ({ event, resolve }) => {
 	const limit = config.maxBodyBytes;
 	const length = request.headers.get('content-length');
 	if (length !== null) {
-		// adapter-node refuses a body longer than its declared length. A longer declared length
-		// is refused unread; Node drops the body after the answer unless it is past the cap.
-		if (Number(length) <= limit) return resolve(event);
-		return tooLarge(event, limit, Number(length) > drainCap(limit));
+		// adapter-node refuses a body longer than its declared length.
+		return Number(length) <= limit ? resolve(event) : tooLarge(event, limit, request.body);
 	}
 	const reader = request.body.getReader();
 	const chunks: Uint8Array[] = [];
@@ -64,7 +59,10 @@ export const bodyLimit: Handle = async ({ event, resolve }) => {
 		const { done, value } = await reader.read();
 		if (done) break;
 		size += value.byteLength;
-		if (size > limit) return tooLarge(event, limit, !(await drain(reader, drainCap(limit))));
+		if (size > limit) {
+			reader.releaseLock();
+			return tooLarge(event, limit, request.body);
+		}
 		chunks.push(value);
 	}
 	event.request = new Request(request.url, {
