@@ -96,13 +96,13 @@ export function sizeJson(f: FeatureEvaluation, findings: SizeFinding[] = []) {
 			: {}),
 		geometric: controls,
 		...(f.actual ? { actual: { size: f.text.actual, withinLimits: f.actual.withinLimits } } : {}),
-		findings: findings.map(({ rule, severity, message, line }) => ({
-			rule,
-			severity,
-			message,
-			line
-		}))
+		findings: findings.map(findingJson)
 	};
+}
+
+/** One rulebook result as the answers carry it. */
+export function findingJson({ rule, severity, message, line }: SizeFinding) {
+	return { rule, severity, message, line };
 }
 
 export function fitJson(

@@ -48,3 +48,54 @@ describe('the OpenAPI document', () => {
 		);
 	});
 });
+
+describe('the features routes in the OpenAPI document', () => {
+	const path = '/teams/{team}/drawings/{number}/revisions/{letter}/features';
+	type Described = {
+		requestBody?: { content: { 'application/json': { schema: Record<string, unknown> } } };
+		responses: Record<string, { content?: { 'application/json': { schema?: unknown } } }>;
+	};
+
+	it('describes the answer of every feature route with the fields of PRODUCT.md §6', () => {
+		const document = openApiDocument('http://localhost:3000');
+		const one = (document.paths[`${path}/{id}`].get as Described).responses['200'].content![
+			'application/json'
+		].schema as { properties: Record<string, unknown> };
+		expect(Object.keys(one.properties)).toEqual(
+			expect.arrayContaining([
+				'id',
+				'balloon',
+				'label',
+				'kind',
+				'internal',
+				'boughtOut',
+				'datumFeature',
+				'carried',
+				'callout',
+				'quantity',
+				'controls',
+				'overrides',
+				'location',
+				'notes',
+				'version',
+				'upper',
+				'lower',
+				'tolerance',
+				'mmc',
+				'lmc',
+				'envelope',
+				'gauges',
+				'virtualCondition',
+				'findings'
+			])
+		);
+		const list = (document.paths[path].get as Described).responses['200'].content![
+			'application/json'
+		].schema as { type: string };
+		expect(list.type).toBe('array');
+		const patch = document.paths[`${path}/{id}`].patch as Described;
+		expect(patch.requestBody!.content['application/json'].schema).toMatchObject({
+			required: ['version']
+		});
+	});
+});

@@ -101,7 +101,17 @@ export function generalToleranceFromForm(form: Record<string, FormDataEntryValue
 	return null;
 }
 
-export const revisionPatch = z.object({
-	version: z.number().int().positive(),
-	reason: z.string().trim().max(2000)
+/** A revision's own copy of the drawing's settings (PRODUCT.md §6 `settings`). */
+export const revisionSettings = z.object({
+	units,
+	standard,
+	generalTolerance: generalToleranceInput
 });
+
+export const revisionPatch = z
+	.object({
+		version: z.number().int().positive({ error: 'Send the version you edited' }),
+		reason: z.string().trim().max(2000).optional(),
+		settings: revisionSettings.partial().strict().optional()
+	})
+	.strict();

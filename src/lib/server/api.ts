@@ -1,4 +1,4 @@
-import type { Handle } from '@sveltejs/kit';
+import { error, type Handle } from '@sveltejs/kit';
 
 const codeForStatus: Record<number, string> = {
 	400: 'invalid',
@@ -61,4 +61,11 @@ function jsonError(
 		}
 	};
 	return new Response(JSON.stringify(body), { status: response.status, headers });
+}
+
+/** Throws a service's refusal (`{status, code, message, …}`) as the API's error. */
+export function refuse(refusal: { status: number; code: string; message: string }): never {
+	const { status, ...body } = refusal as typeof refusal & { ok?: boolean };
+	delete body.ok;
+	error(status, body as App.Error);
 }

@@ -1,10 +1,14 @@
 import { error } from '@sveltejs/kit';
 import { can, type Capability } from './capabilities';
 import { db } from './db';
+import { isUuid } from './api-input';
 import { getDrawing, getRevision, listRevisions } from './db/queries/drawings';
+import { getFeature } from './db/queries/features';
 import { requireMember } from './guards';
 
-const notFound = () => error(404, { message: 'Not found', code: 'not_found' });
+function notFound(): never {
+	error(404, { message: 'Not found', code: 'not_found' });
+}
 
 /**
  * A drawing the asker may see with `capability`. Supplier quality sees a drawing only once a
@@ -32,4 +36,15 @@ export async function requireRevision(
 	if (!revision) notFound();
 	if (access.releasedOnly && !['released', 'superseded'].includes(revision.state)) notFound();
 	return { ...access, revision };
+}
+
+/** A feature of a revision the asker may see with `capability`; other ids answer 404. */
+export async function requireFeature(
+	params: { team: string; number: string; letter: string; id: string },
+	capability: Capability
+) {
+	const place = await requireRevision(params.team, params.number, params.letter, capability);
+	const feature = isUuid(params.id) ? await getFeature(db, place.revision.id, params.id) : null;
+	if (!feature) notFound();
+	return { place, feature };
 }

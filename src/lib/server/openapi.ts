@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { adviseInput, fitInput, sizeInput, sizeQuery } from '$lib/schemas/calc';
 import { drawingInput, drawingPatch, revisionPatch } from '$lib/schemas/drawings';
+import { deleteQuery, featureInput, featurePatch, featureResponse } from '$lib/schemas/features';
 import {
 	activityQuery,
 	apiTokenInput,
@@ -18,6 +19,8 @@ interface Operation {
 	public?: boolean;
 	success: number;
 	produces?: string;
+	/** The success answer's shape, when the document describes it. */
+	response?: z.ZodType;
 }
 
 /**
@@ -89,13 +92,47 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 	},
 	'/teams/{team}/drawings/{number}/revisions/{letter}': {
 		get: { summary: 'One revision', success: 200 },
-		patch: { summary: 'Correct the reason for the change', body: revisionPatch, success: 200 }
+		patch: {
+			summary:
+				'Correct the reason for the change or edit the settings (units, standard, general tolerance) while not frozen',
+			body: revisionPatch,
+			success: 200
+		}
 	},
 	'/teams/{team}/drawings/{number}/revisions/{letter}/file': {
 		get: {
 			summary: 'The PDF, streamed through the app, with HTTP Range support',
 			success: 200,
 			produces: 'application/pdf'
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/features': {
+		get: {
+			summary: 'Features of size on the revision, balloon order, with computed values and findings',
+			response: z.array(featureResponse),
+			success: 200
+		},
+		post: {
+			summary:
+				'Add a feature (next balloon of the drawing); a bad callout answers 400 with `position`, a frozen revision 409 frozen',
+			body: featureInput,
+			response: featureResponse,
+			success: 201
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/features/{id}': {
+		get: { summary: 'One feature', response: featureResponse, success: 200 },
+		patch: {
+			summary:
+				'Edit or move a feature; 409 stale with the current feature, 409 frozen on approved and released revisions',
+			body: featurePatch,
+			response: featureResponse,
+			success: 200
+		},
+		delete: {
+			summary: 'Delete a feature (its balloon is not reused)',
+			query: deleteQuery,
+			success: 204
 		}
 	},
 	'/calc/size': {
@@ -140,13 +177,16 @@ export const errorCodes: Record<number, string[]> = {
 	403: ['forbidden'],
 	404: ['not_found'],
 	405: ['method_not_allowed'],
-	409: ['conflict', 'stale'],
+	409: ['conflict', 'stale', 'frozen'],
 	413: ['too_large'],
 	415: ['not_pdf', 'unsupported_media_type'],
 	422: ['unreadable_pdf', 'encrypted_pdf', 'too_many_pages', 'duplicate_revision'],
 	429: ['rate_limited'],
 	500: ['internal']
 };
+
+const responseSchema = (schema: z.ZodType) =>
+	z.toJSONSchema(schema, { io: 'output', unrepresentable: 'any', target: 'openapi-3.0' });
 
 const errorResponse = {
 	description: 'An error: `{error: {code, message, …}}`',
@@ -203,7 +243,11 @@ export function openApiDocument(origin: string) {
 					[op.success]: {
 						description: 'Success',
 						...(op.success !== 204 && {
-							content: { [op.produces ?? 'application/json']: {} }
+							content: {
+								[op.produces ?? 'application/json']: op.response
+									? { schema: responseSchema(op.response) }
+									: {}
+							}
 						})
 					},
 					default: errorResponse

@@ -12,9 +12,15 @@ import {
 	uniqueIndex,
 	uuid
 } from 'drizzle-orm/pg-core';
-import { UNITS } from '../../tolerance/decimal';
-import { GOVERNING_STANDARDS, type GeneralTolerance } from '../../tolerance/drawing-context';
+import { UNITS, type Units } from '../../tolerance/decimal';
+import {
+	GOVERNING_STANDARDS,
+	type GeneralTolerance,
+	type GoverningStandard
+} from '../../tolerance/drawing-context';
+import type { Characteristic } from '../../tolerance/feature';
 import type { RulebookTeam } from '../../tolerance/rulebook/types';
+import { featureKinds } from '../../features';
 
 // Auth.js tables (shape expected by @auth/drizzle-adapter); sessions are JWTs, so no sessions table.
 export const users = pgTable('users', {
@@ -217,7 +223,18 @@ export const revisionStates = [
 ] as const;
 export type RevisionState = (typeof revisionStates)[number];
 
+/** Approved and released revisions (and released ones later superseded) no longer change. */
+export const frozenStates: readonly RevisionState[] = ['approved', 'released', 'superseded'];
+export const isFrozen = (state: RevisionState) => frozenStates.includes(state);
+
 export type GeneralToleranceSetting = GeneralTolerance | null;
+
+/** What a revision copies from its drawing at upload (PRODUCT.md §3). */
+export interface RevisionSettings {
+	units: Units;
+	standard: GoverningStandard;
+	generalTolerance: GeneralToleranceSetting;
+}
 
 export const drawings = pgTable(
 	'drawings',
@@ -234,6 +251,8 @@ export const drawings = pgTable(
 		standard: text('standard', { enum: GOVERNING_STANDARDS }).notNull(),
 		generalTolerance: jsonb('general_tolerance').$type<GeneralToleranceSetting>(),
 		notes: text('notes').notNull().default(''),
+		// Balloon numbers are per drawing and never reused: the next one is counted here.
+		nextBalloon: integer('next_balloon').notNull().default(1),
 		version: integer('version').notNull().default(1),
 		createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
@@ -258,12 +277,82 @@ export const revisions = pgTable(
 		size: bigint('size', { mode: 'number' }).notNull(),
 		storageKey: text('storage_key').notNull(),
 		uploadedBy: uuid('uploaded_by').references(() => users.id, { onDelete: 'set null' }),
+		// The revision's own copy of the drawing's settings, taken at upload and frozen with it.
+		settings: jsonb('settings').$type<RevisionSettings>().notNull(),
 		version: integer('version').notNull().default(1),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 	},
 	(table) => [uniqueIndex('revisions_drawing_letter_idx').on(table.drawingId, table.letter)]
 );
 
+/** A geometric tolerance as stored: the calc API's control shape (PRODUCT.md §6 `controls`). */
+export interface StoredControl {
+	characteristic: Characteristic;
+	value: string;
+	diameterZone: boolean;
+	appliesTo: 'surface' | 'median';
+	modifier: 'mmc' | 'lmc' | 'rfs';
+	datums: string[];
+}
+
+export interface FeatureOverridesSetting {
+	envelope: boolean;
+	independency: boolean;
+	stock: boolean;
+	freeState: boolean;
+}
+
+/** A marker: sheet 1-based, x and y in 0..1 of the page as displayed; an area adds w and h. */
+export interface MarkerLocation {
+	sheet: number;
+	x: number;
+	y: number;
+	w?: number;
+	h?: number;
+}
+
+/**
+ * Feature-of-size records of one revision. `callout` is kept as written; a plain datum face has
+ * an empty callout and no computed values.
+ */
+export const features = pgTable(
+	'features',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		revisionId: uuid('revision_id')
+			.notNull()
+			.references(() => revisions.id, { onDelete: 'cascade' }),
+		drawingId: uuid('drawing_id')
+			.notNull()
+			.references(() => drawings.id, { onDelete: 'cascade' }),
+		balloon: integer('balloon').notNull(),
+		label: text('label').notNull().default(''),
+		kind: text('kind', { enum: featureKinds }).notNull(),
+		internal: boolean('internal').notNull(),
+		boughtOut: boolean('bought_out').notNull().default(false),
+		datumFeature: text('datum_feature'),
+		carried: jsonb('carried').$type<{ from: string; confirmed: boolean } | null>(),
+		callout: text('callout').notNull(),
+		quantity: integer('quantity').notNull().default(1),
+		controls: jsonb('controls').$type<StoredControl[]>().notNull().default([]),
+		overrides: jsonb('overrides')
+			.$type<FeatureOverridesSetting>()
+			.notNull()
+			.default({ envelope: false, independency: false, stock: false, freeState: false }),
+		location: jsonb('location').$type<MarkerLocation | null>(),
+		notes: text('notes').notNull().default(''),
+		version: integer('version').notNull().default(1),
+		createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(table) => [
+		uniqueIndex('features_revision_balloon_idx').on(table.revisionId, table.balloon),
+		index('features_drawing_idx').on(table.drawingId)
+	]
+);
+
+export type FeatureRow = typeof features.$inferSelect;
 export type UserRow = typeof users.$inferSelect;
 export type DrawingRow = typeof drawings.$inferSelect;
 export type RevisionRow = typeof revisions.$inferSelect;

@@ -1,17 +1,22 @@
+import { eq } from 'drizzle-orm';
+import { featureInput } from '$lib/schemas/features';
 import type { Db } from '../db/connect';
 import {
 	createDrawing,
 	DrawingNumberTaken,
 	getDrawing,
+	getRevision,
 	latestRevision
 } from '../db/queries/drawings';
+import { addFeature } from '../features';
 import { addMember, getTeamBySlug } from '../db/queries/teams';
 import type { Storage } from '../storage';
 import { storeRevisionBytes } from '../uploads';
 import { demoDrawingPdf, demoDrawings } from './drawings';
 import { demoPeople } from './people';
+import { demoReviews } from './review';
 import { createUser, getUserByEmail } from '../db/queries/users';
-import { teams, type Role, type UserRow } from '../db/schema';
+import { drawings, teams, type Role, type TeamRow, type UserRow } from '../db/schema';
 import { hashPassword } from '../passwords';
 
 /** The invented Kestrel Fluidics demo: created once, never overwritten. */
@@ -44,7 +49,10 @@ export async function seedDemo(db: Db, password: string, storage: Storage, tempD
 		});
 	const team = await getTeamBySlug(db, 'kestrel');
 	const drafter = people.find((p) => p.role === 'drafter')?.user;
-	if (team && drafter) await seedDrawings(db, storage, tempDir, team.id, drafter);
+	if (team && drafter) {
+		await seedDrawings(db, storage, tempDir, team.id, drafter);
+		await seedFeatures(db, team, drafter);
+	}
 }
 
 /** The four Kestrel drawings, each with revision A as a generated vector PDF. */
@@ -92,5 +100,65 @@ async function seedDrawings(
 		if (!stored.ok && stored.code !== 'conflict' && stored.code !== 'duplicate_revision') {
 			throw new Error(`Demo drawing ${demo.number} was refused: ${stored.message}`);
 		}
+	}
+}
+
+/**
+ * The demo's features on revision A of each drawing, each placed where the generator drew its
+ * callout; a datum letter that no feature of size defines becomes a plain face at its datum
+ * symbol. Only on a drawing where no balloon was ever given, so nothing is added twice.
+ */
+async function seedFeatures(db: Db, team: TeamRow, drafter: UserRow) {
+	for (const demo of demoDrawings) {
+		const review = demoReviews.find((r) => r.number === demo.number);
+		if (!review) continue;
+		await db.transaction(async (tx) => {
+			const found = await getDrawing(tx, team.id, demo.number);
+			if (!found) return;
+			// Locked, so a second instance seeding at the same time waits and then finds balloons.
+			const [drawing] = await tx
+				.select()
+				.from(drawings)
+				.where(eq(drawings.id, found.id))
+				.for('update');
+			const revision = await getRevision(tx, drawing.id, 'A');
+			if (!revision || drawing.nextBalloon !== 1) return;
+			const place = { team, drawing, revision };
+			const at = (kind: string, text: string) => {
+				const c = demo.callouts.find((c) => c.kind === kind && c.text === text);
+				return c ? { sheet: c.sheet, x: c.x, y: c.y } : null;
+			};
+			const defined = new Set(review.features.map((f) => f.datumFeature).filter(Boolean));
+			const faces = (review.drawing.datums ?? []).filter((letter) => !defined.has(letter));
+			const inputs = [
+				...review.features.map((f) => ({
+					label: f.label,
+					kind: f.kind,
+					internal: f.internal,
+					boughtOut: f.boughtOut ?? false,
+					callout: f.callout,
+					quantity: f.quantity ?? undefined,
+					controls: f.controls,
+					overrides: f.overrides,
+					datumFeature: f.datumFeature ?? null,
+					notes: f.notes,
+					location: at('size', f.callout)
+				})),
+				...faces.map((letter) => {
+					const symbol = demo.callouts.find((c) => c.kind === 'datum' && c.text === letter);
+					const words = symbol?.label.replace(/^Datum \w+: /, '') ?? `datum ${letter}`;
+					return {
+						label: words.charAt(0).toUpperCase() + words.slice(1),
+						kind: 'other' as const,
+						datumFeature: letter,
+						location: at('datum', letter)
+					};
+				})
+			];
+			for (const input of inputs) {
+				const added = await addFeature(tx, drafter, place, featureInput.parse(input));
+				if (!added.ok) throw new Error(`Demo feature on ${demo.number}: ${added.message}`);
+			}
+		});
 	}
 }

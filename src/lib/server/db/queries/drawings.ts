@@ -1,11 +1,19 @@
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../connect';
-import { drawings, revisions, users, type DrawingRow, type RevisionRow } from '../schema';
+import {
+	drawings,
+	isFrozen,
+	revisions,
+	users,
+	type DrawingRow,
+	type RevisionRow,
+	type RevisionSettings
+} from '../schema';
 import { recordActivity, type Actor } from './activity';
 
 export type DrawingInput = Omit<
 	typeof drawings.$inferInsert,
-	'id' | 'teamId' | 'version' | 'createdBy' | 'createdAt' | 'updatedAt'
+	'id' | 'teamId' | 'version' | 'nextBalloon' | 'createdBy' | 'createdAt' | 'updatedAt'
 >;
 
 const visibleToSuppliers = ['released', 'superseded'] as const;
@@ -149,12 +157,17 @@ export async function insertRevision(
 	db: Db,
 	actor: Actor,
 	drawing: DrawingRow,
-	values: Omit<typeof revisions.$inferInsert, 'drawingId' | 'uploadedBy'>
+	values: Omit<typeof revisions.$inferInsert, 'drawingId' | 'uploadedBy' | 'settings'>
 ) {
 	return db.transaction(async (tx) => {
 		const [row] = await tx
 			.insert(revisions)
-			.values({ ...values, drawingId: drawing.id, uploadedBy: actor.id })
+			.values({
+				...values,
+				drawingId: drawing.id,
+				uploadedBy: actor.id,
+				settings: settingsOf(drawing)
+			})
 			.onConflictDoNothing()
 			.returning();
 		if (!row) throw new RevisionLetterTaken(`Revision ${values.letter} already exists`);
@@ -186,11 +199,21 @@ export function publicDrawing(row: DrawingRow) {
 	};
 }
 
+/** The copy a new revision takes of its drawing's settings. */
+export function settingsOf(drawing: DrawingRow): RevisionSettings {
+	return {
+		units: drawing.units,
+		standard: drawing.standard,
+		generalTolerance: drawing.generalTolerance ?? null
+	};
+}
+
 export function publicRevision(row: RevisionRow) {
 	return {
 		letter: row.letter,
 		reason: row.reason,
 		state: row.state,
+		settings: row.settings,
 		pages: row.pages,
 		sheets: row.sheets,
 		sha256: row.sha256,
@@ -201,24 +224,44 @@ export function publicRevision(row: RevisionRow) {
 	};
 }
 
-export async function updateRevisionReason(
+export type RevisionChanges = { reason?: string; settings?: Partial<RevisionSettings> };
+
+/**
+ * Corrects the reason and the revision's own settings. Settings freeze with the revision
+ * (`frozen`); a stale version gives the current row (`stale`).
+ */
+export async function updateRevision(
 	db: Db,
 	actor: Actor,
 	drawing: DrawingRow,
 	revision: RevisionRow,
 	version: number,
-	reason: string
+	changes: RevisionChanges
 ) {
 	return db.transaction(async (tx) => {
+		const [locked] = await tx
+			.select()
+			.from(revisions)
+			.where(eq(revisions.id, revision.id))
+			.for('update');
+		if (locked.version !== version) return { ok: false as const, code: 'stale', current: locked };
+		if (changes.settings && isFrozen(locked.state)) {
+			return { ok: false as const, code: 'frozen', current: locked };
+		}
+		const settings = changes.settings ? { ...locked.settings, ...changes.settings } : undefined;
 		const [row] = await tx
 			.update(revisions)
-			.set({ reason, version: sql`${revisions.version} + 1` })
-			.where(and(eq(revisions.id, revision.id), eq(revisions.version, version)))
+			.set({
+				...(changes.reason !== undefined ? { reason: changes.reason } : {}),
+				...(settings ? { settings } : {}),
+				version: sql`${revisions.version} + 1`
+			})
+			.where(eq(revisions.id, revision.id))
 			.returning();
-		if (!row) {
-			const [current] = await tx.select().from(revisions).where(eq(revisions.id, revision.id));
-			return { ok: false as const, current };
-		}
+		const what = [
+			changes.reason !== undefined ? 'the reason' : null,
+			settings ? 'the settings' : null
+		].filter(Boolean);
 		await recordActivity(tx, {
 			teamId: drawing.teamId,
 			actor,
@@ -226,9 +269,9 @@ export async function updateRevisionReason(
 			entityId: row.id,
 			drawingId: drawing.id,
 			action: 'update',
-			summary: `changed the reason of revision ${row.letter} of ${drawing.number}`,
-			before: { reason: revision.reason },
-			after: { reason: row.reason }
+			summary: `changed ${what.join(' and ') || 'nothing'} of revision ${row.letter} of ${drawing.number}`,
+			before: { reason: locked.reason, settings: locked.settings },
+			after: { reason: row.reason, settings: row.settings }
 		});
 		return { ok: true as const, revision: row };
 	});

@@ -1,0 +1,196 @@
+import { and, asc, eq, sql } from 'drizzle-orm';
+import type { Db } from '../connect';
+import {
+	drawings,
+	features,
+	isFrozen,
+	revisions,
+	type DrawingRow,
+	type FeatureRow,
+	type RevisionRow
+} from '../schema';
+import { recordActivity, type Actor } from './activity';
+
+export type FeatureValues = Omit<
+	typeof features.$inferInsert,
+	| 'id'
+	| 'revisionId'
+	| 'drawingId'
+	| 'balloon'
+	| 'version'
+	| 'createdBy'
+	| 'createdAt'
+	| 'updatedAt'
+>;
+
+export class RevisionFrozen extends Error {
+	constructor(readonly revision: RevisionRow) {
+		super(`Revision ${revision.letter} is ${revision.state}: its features no longer change`);
+	}
+}
+export class StaleFeature extends Error {
+	/** `current` is null when the feature was deleted meanwhile. */
+	constructor(readonly current: FeatureRow | null) {
+		super(
+			current
+				? 'Someone changed this feature since you loaded it'
+				: 'Someone deleted this feature since you loaded it'
+		);
+	}
+}
+
+export async function listFeatures(db: Db, revisionId: string) {
+	return db
+		.select()
+		.from(features)
+		.where(eq(features.revisionId, revisionId))
+		.orderBy(asc(features.balloon));
+}
+
+export async function getFeature(db: Db, revisionId: string, id: string) {
+	const [row] = await db
+		.select()
+		.from(features)
+		.where(and(eq(features.revisionId, revisionId), eq(features.id, id)));
+	return row ?? null;
+}
+
+/** The stored record as the trail keeps it (before and after), without computed values. */
+export function storedFeature(row: FeatureRow) {
+	return {
+		id: row.id,
+		balloon: row.balloon,
+		label: row.label,
+		kind: row.kind,
+		internal: row.internal,
+		boughtOut: row.boughtOut,
+		datumFeature: row.datumFeature ?? null,
+		carried: row.carried ?? null,
+		callout: row.callout,
+		quantity: row.quantity,
+		controls: row.controls,
+		overrides: row.overrides,
+		location: row.location ?? null,
+		notes: row.notes,
+		version: row.version
+	};
+}
+
+/** Locks the revision for the change and refuses a frozen one (approved, released). */
+async function lockOpenRevision(tx: Db, revision: RevisionRow) {
+	const [locked] = await tx
+		.select()
+		.from(revisions)
+		.where(eq(revisions.id, revision.id))
+		.for('update');
+	if (isFrozen(locked.state)) throw new RevisionFrozen(locked);
+	return locked;
+}
+
+const name = (row: FeatureRow) => `feature ${row.balloon}${row.label ? ` (${row.label})` : ''}`;
+
+/** Adds a feature with the drawing's next balloon number: counted, never reused. */
+export async function createFeature(
+	db: Db,
+	actor: Actor,
+	drawing: DrawingRow,
+	revision: RevisionRow,
+	values: FeatureValues
+) {
+	return db.transaction(async (tx) => {
+		await lockOpenRevision(tx, revision);
+		const [counter] = await tx
+			.update(drawings)
+			.set({ nextBalloon: sql`${drawings.nextBalloon} + 1` })
+			.where(eq(drawings.id, drawing.id))
+			.returning({ next: drawings.nextBalloon });
+		const [row] = await tx
+			.insert(features)
+			.values({
+				...values,
+				revisionId: revision.id,
+				drawingId: drawing.id,
+				balloon: counter.next - 1,
+				createdBy: actor.id
+			})
+			.returning();
+		await recordActivity(tx, {
+			teamId: drawing.teamId,
+			actor,
+			entity: 'feature',
+			entityId: row.id,
+			drawingId: drawing.id,
+			action: 'create',
+			summary: `added ${name(row)} ${row.callout} on revision ${revision.letter} of ${drawing.number}`,
+			after: storedFeature(row)
+		});
+		return row;
+	});
+}
+
+/** Applies an edit made against `version`; a stale one throws with the current feature. */
+export async function updateFeature(
+	db: Db,
+	actor: Actor,
+	drawing: DrawingRow,
+	revision: RevisionRow,
+	feature: FeatureRow,
+	version: number,
+	changes: Partial<FeatureValues>
+) {
+	return db.transaction(async (tx) => {
+		await lockOpenRevision(tx, revision);
+		const [row] = await tx
+			.update(features)
+			.set({ ...changes, version: sql`${features.version} + 1`, updatedAt: new Date() })
+			.where(and(eq(features.id, feature.id), eq(features.version, version)))
+			.returning();
+		if (!row) throw new StaleFeature(await currentFeature(tx, feature.id));
+		await recordActivity(tx, {
+			teamId: drawing.teamId,
+			actor,
+			entity: 'feature',
+			entityId: row.id,
+			drawingId: drawing.id,
+			action: 'update',
+			summary: `edited ${name(row)} on revision ${revision.letter} of ${drawing.number}`,
+			before: storedFeature(feature),
+			after: storedFeature(row)
+		});
+		return row;
+	});
+}
+
+export async function deleteFeature(
+	db: Db,
+	actor: Actor,
+	drawing: DrawingRow,
+	revision: RevisionRow,
+	feature: FeatureRow,
+	version: number
+) {
+	return db.transaction(async (tx) => {
+		await lockOpenRevision(tx, revision);
+		const [row] = await tx
+			.delete(features)
+			.where(and(eq(features.id, feature.id), eq(features.version, version)))
+			.returning();
+		if (!row) throw new StaleFeature(await currentFeature(tx, feature.id));
+		await recordActivity(tx, {
+			teamId: drawing.teamId,
+			actor,
+			entity: 'feature',
+			entityId: row.id,
+			drawingId: drawing.id,
+			action: 'delete',
+			summary: `deleted ${name(row)} from revision ${revision.letter} of ${drawing.number}`,
+			before: storedFeature(row)
+		});
+		return row;
+	});
+}
+
+async function currentFeature(tx: Db, id: string) {
+	const [current] = await tx.select().from(features).where(eq(features.id, id));
+	return current ?? null;
+}

@@ -1,0 +1,215 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { twoSheetPdf } from '../fixtures/pdfs';
+import { unique } from '../shared';
+import { baseUrl, Client, newVerifiedUser } from './client';
+
+type Actor = 'signedOut' | 'admin' | 'drafter' | 'checker' | 'quality' | 'outsider';
+const actors: Actor[] = ['signedOut', 'admin', 'drafter', 'checker', 'quality', 'outsider'];
+const clients = {} as Record<Actor, Client>;
+let outsiderTeam = '';
+
+/** A new drawing with revision A (draft) in `team`, uploaded by `client`; its API path. */
+async function draftRevision(client: Client, team: string) {
+	const number = `F-${unique()}`.toUpperCase();
+	const created = await client.api('POST', `/teams/${team}/drawings`, {
+		number,
+		title: 'Bushing for feature tests',
+		units: 'mm',
+		standard: 'iso-8015',
+		generalTolerance: { kind: 'iso2768', linear: 'm' }
+	});
+	expect(created.status).toBe(201);
+	const form = new FormData();
+	form.set(
+		'file',
+		new Blob([(await twoSheetPdf(number)) as BlobPart], { type: 'application/pdf' })
+	);
+	const uploaded = await fetch(
+		new URL(`/api/v1/teams/${team}/drawings/${number}/revisions`, baseUrl),
+		{
+			method: 'POST',
+			headers: {
+				cookie: [...client.cookies].map(([k, v]) => `${k}=${v}`).join('; '),
+				origin: new URL(baseUrl).origin
+			},
+			body: form
+		}
+	);
+	expect(uploaded.status).toBe(201);
+	return { number, path: `/teams/${team}/drawings/${number}/revisions/A` };
+}
+
+const bore = {
+	kind: 'hole',
+	label: 'Bore',
+	callout: 'Ø12 H7',
+	location: { sheet: 1, x: 0.5, y: 0.4 }
+};
+
+beforeAll(async () => {
+	for (const actor of actors) clients[actor] = new Client();
+	for (const role of ['admin', 'drafter', 'checker', 'quality'] as const) {
+		await clients[role].signIn(`${role}@example.test`);
+	}
+	await newVerifiedUser(clients.outsider, 'Olu Elsewhere');
+	outsiderTeam = `elsewhere-${unique()}`;
+	const team = await clients.outsider.api('POST', '/teams', {
+		name: 'Elsewhere Pumps',
+		slug: outsiderTeam
+	});
+	expect(team.status).toBe(201);
+});
+
+describe('who may create, edit and delete features on a draft revision', () => {
+	// Supplier quality may not edit features (403, before anything is looked up) and reads
+	// released revisions only: a draft is not found for them.
+	const expected: Record<Actor, [create: number, read: number, edit: number, remove: number]> = {
+		signedOut: [401, 401, 401, 401],
+		admin: [201, 200, 200, 204],
+		drafter: [201, 200, 200, 204],
+		checker: [201, 200, 200, 204],
+		quality: [403, 404, 403, 403],
+		outsider: [404, 404, 404, 404]
+	};
+	for (const actor of actors) {
+		it(actor, async () => {
+			const { path } = await draftRevision(clients.drafter, 'kestrel');
+			const own = await clients.drafter.api('POST', `${path}/features`, bore);
+			expect(own.status).toBe(201);
+			const { id } = await own.json();
+			const client = clients[actor];
+			const seen = [
+				(await client.api('POST', `${path}/features`, { ...bore, label: actor })).status,
+				(await client.api('GET', `${path}/features/${id}`)).status,
+				(await client.api('PATCH', `${path}/features/${id}`, { version: 1, label: 'edited' }))
+					.status,
+				(await client.api('DELETE', `${path}/features/${id}?version=2`)).status
+			];
+			expect(seen).toEqual(expected[actor]);
+			const list = await (await clients.drafter.api('GET', `${path}/features`)).json();
+			const writes = expected[actor][0] === 201;
+			expect(list.map((f: { label: string }) => f.label)).toEqual(writes ? [actor] : ['Bore']);
+		});
+	}
+});
+
+describe('features through the API', () => {
+	it('answer with the computed values, a new balloon each, and 409 stale with the current feature', async () => {
+		const { path } = await draftRevision(clients.drafter, 'kestrel');
+		const created = await clients.checker.api('POST', `${path}/features`, bore);
+		const feature = await created.json();
+		// ISO 286-2:2010, table 2 (H, over 10 to 18 mm) with IT7 = 18 µm from table 1.
+		expect(feature).toMatchObject({
+			balloon: 1,
+			internal: true,
+			boughtOut: false,
+			datumFeature: null,
+			carried: null,
+			quantity: 1,
+			upper: '12.018',
+			lower: '12.000',
+			mmc: '12.000',
+			lmc: '12.018',
+			location: { sheet: 1, x: 0.5, y: 0.4 },
+			version: 1,
+			findings: expect.any(Array)
+		});
+		const second = await (await clients.drafter.api('POST', `${path}/features`, bore)).json();
+		expect(second.balloon).toBe(2);
+
+		const moved = await clients.drafter.api('PATCH', `${path}/features/${feature.id}`, {
+			version: 1,
+			location: { sheet: 2, x: 0.25, y: 0.75 }
+		});
+		expect(moved.status).toBe(200);
+		const stale = await clients.checker.api('PATCH', `${path}/features/${feature.id}`, {
+			version: 1,
+			label: 'late'
+		});
+		expect(stale.status).toBe(409);
+		const body = await stale.json();
+		expect(body.error).toMatchObject({
+			code: 'stale',
+			current: { id: feature.id, version: 2, location: { sheet: 2, x: 0.25, y: 0.75 } }
+		});
+		const staleDelete = await clients.checker.api(
+			'DELETE',
+			`${path}/features/${feature.id}?version=1`
+		);
+		expect(staleDelete.status).toBe(409);
+		expect((await clients.checker.api('DELETE', `${path}/features/${feature.id}`)).status).toBe(
+			400
+		);
+	});
+
+	it('refuse a bad callout with 400 and the position where it fails', async () => {
+		const { path } = await draftRevision(clients.drafter, 'kestrel');
+		const bad = await clients.drafter.api('POST', `${path}/features`, {
+			...bore,
+			callout: 'Ø12 H7x'
+		});
+		expect(bad.status).toBe(400);
+		const { error } = await bad.json();
+		expect(error).toMatchObject({ code: 'invalid', field: 'callout' });
+		expect(error.position).toBeTypeOf('number');
+		expect(await (await clients.drafter.api('GET', `${path}/features`)).json()).toEqual([]);
+	});
+
+	it("answer 404 for another team's feature, whichever team's path it is asked through", async () => {
+		const ours = await draftRevision(clients.drafter, 'kestrel');
+		const theirs = await draftRevision(clients.outsider, outsiderTeam);
+		const theirFeature = await (
+			await clients.outsider.api('POST', `${theirs.path}/features`, bore)
+		).json();
+		const ourFeature = await (
+			await clients.drafter.api('POST', `${ours.path}/features`, bore)
+		).json();
+		expect(
+			(await clients.drafter.api('GET', `${ours.path}/features/${theirFeature.id}`)).status
+		).toBe(404);
+		expect(
+			(
+				await clients.drafter.api('PATCH', `${ours.path}/features/${theirFeature.id}`, {
+					version: 1,
+					label: 'x'
+				})
+			).status
+		).toBe(404);
+		expect(
+			(await clients.outsider.api('GET', `${theirs.path}/features/${ourFeature.id}`)).status
+		).toBe(404);
+		expect((await clients.drafter.api('GET', `${ours.path}/features/not-a-uuid`)).status).toBe(404);
+	});
+});
+
+describe('revision settings', () => {
+	it("are the revision's own: editing the drawing's standard leaves them unchanged", async () => {
+		const { number, path } = await draftRevision(clients.drafter, 'kestrel');
+		const revision = await (await clients.drafter.api('GET', path)).json();
+		expect(revision.settings).toEqual({
+			units: 'mm',
+			standard: 'iso-8015',
+			generalTolerance: { kind: 'iso2768', linear: 'm' }
+		});
+		const drawing = await (
+			await clients.drafter.api('GET', `/teams/kestrel/drawings/${number}`)
+		).json();
+		const edited = await clients.drafter.api('PATCH', `/teams/kestrel/drawings/${number}`, {
+			version: drawing.version,
+			standard: 'asme-y14.5-2018'
+		});
+		expect(edited.status).toBe(200);
+		expect((await (await clients.drafter.api('GET', path)).json()).settings.standard).toBe(
+			'iso-8015'
+		);
+		const changed = await clients.drafter.api('PATCH', path, {
+			version: revision.version,
+			settings: { standard: 'asme-y14.5-2009' }
+		});
+		expect(changed.status).toBe(200);
+		expect(await changed.json()).toMatchObject({
+			settings: { units: 'mm', standard: 'asme-y14.5-2009' },
+			version: revision.version + 1
+		});
+	});
+});

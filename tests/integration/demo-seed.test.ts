@@ -1,0 +1,74 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Database } from '../../src/lib/server/db/connect';
+import { getDrawing, getRevision } from '../../src/lib/server/db/queries/drawings';
+import { getTeamBySlug } from '../../src/lib/server/db/queries/teams';
+import { demoDrawings } from '../../src/lib/server/demo/drawings';
+import { seedDemo } from '../../src/lib/server/demo/seed';
+import { featuresOf } from '../../src/lib/server/features';
+import { createStorage } from '../../src/lib/server/storage';
+import { freshDatabase, startFakes, tempDir } from './harness';
+
+let database: Database;
+let fakes: Awaited<ReturnType<typeof startFakes>>;
+let temp: ReturnType<typeof tempDir>;
+
+async function boardOf(number: string) {
+	const team = (await getTeamBySlug(database.db, 'kestrel'))!;
+	const drawing = (await getDrawing(database.db, team.id, number))!;
+	const revision = (await getRevision(database.db, drawing.id, 'A'))!;
+	return featuresOf(database.db, { team, drawing, revision });
+}
+
+beforeAll(async () => {
+	database = await freshDatabase();
+	fakes = await startFakes();
+	temp = tempDir();
+	const storage = createStorage(fakes.storageSettings);
+	await seedDemo(database.db, 'demo password 1', storage, temp.dir);
+	// A second start (or a second instance) adds nothing.
+	await seedDemo(database.db, 'demo password 1', storage, temp.dir);
+}, 120_000);
+afterAll(async () => {
+	await database?.close();
+	await fakes?.stop();
+	temp?.remove();
+});
+
+describe('the demo board', () => {
+	it('has every feature placed where the sheet shows its callout', async () => {
+		const bushing = await boardOf('KF-1003');
+		const sheet = demoDrawings.find((d) => d.number === 'KF-1003')!;
+		expect(bushing.map((f) => [f.balloon, f.label, f.callout])).toEqual([
+			[1, 'Bore', 'Ø12 H7'],
+			[2, 'Outside diameter', 'Ø18 p6 Ⓔ'],
+			[3, 'Length', '20']
+		]);
+		for (const f of bushing) {
+			const drawn = sheet.callouts.find((c) => c.kind === 'size' && c.text === f.callout)!;
+			expect(f.location).toEqual({ sheet: 1, x: drawn.x, y: drawn.y });
+		}
+		// ISO 286-2:2010, table 2 (H, over 10 to 18 mm) with IT7 = 18 µm from table 1.
+		expect(bushing[0]).toMatchObject({ upper: '12.018', lower: '12.000' });
+	});
+
+	it('defines datum A by a plain face at its symbol, so the position frame refers to defined datums', async () => {
+		const housing = await boardOf('KF-1001');
+		const face = housing.find((f) => f.datumFeature === 'A')!;
+		expect(face).toMatchObject({ kind: 'other', callout: '', label: 'Front face', problem: null });
+		const symbol = demoDrawings
+			.find((d) => d.number === 'KF-1001')!
+			.callouts.find((c) => c.kind === 'datum' && c.text === 'A')!;
+		expect(face.location).toEqual({ sheet: 1, x: symbol.x, y: symbol.y });
+		const bolts = housing.find((f) => f.label === 'Cover bolt holes')!;
+		expect(bolts.quantity).toBe(4);
+		expect(bolts.findings.map((f) => f.rule)).not.toContain('GEO-04');
+		for (const number of ['KF-1001', 'KF-1002', 'KF-1003', 'KF-2001']) {
+			const board = await boardOf(number);
+			expect(board.length, number).toBeGreaterThan(0);
+			expect(
+				board.every((f) => f.location !== null && f.problem === null),
+				number
+			).toBe(true);
+		}
+	});
+});
