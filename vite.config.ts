@@ -30,7 +30,8 @@ export default defineConfig({
 					testTimeout: 120_000,
 					hookTimeout: 240_000,
 					fileParallelism: false,
-					globalSetup: ['tests/e2e/global-setup.ts']
+					globalSetup: ['tests/e2e/global-setup.ts'],
+					setupFiles: ['tests/app/unhandled.ts']
 				}
 			},
 			{
@@ -42,7 +43,8 @@ export default defineConfig({
 					testTimeout: 120_000,
 					hookTimeout: 240_000,
 					fileParallelism: false,
-					globalSetup: ['tests/e2e/global-setup.ts']
+					globalSetup: ['tests/e2e/global-setup.ts'],
+					setupFiles: ['tests/app/unhandled.ts']
 				}
 			}
 		]

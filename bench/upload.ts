@@ -8,6 +8,7 @@ import { join } from 'node:path';
 import { Readable } from 'node:stream';
 import { bulkyPdf } from '../tests/fixtures/pdfs';
 import { startApp } from './app';
+import { apiTokenFor } from './api-token';
 import { peakGrowth, resetPeak, rssBytes } from './memory';
 
 const megabytes = Number(process.env.BENCH_MB || 100);
@@ -35,28 +36,7 @@ async function json(response: Response) {
 	return response.json();
 }
 // Sign in as the demo drafter through the API's own means: a personal token.
-const signIn = await fetch(`${baseUrl}/signin?/password`, {
-	method: 'POST',
-	headers: {
-		origin: baseUrl,
-		'content-type': 'application/x-www-form-urlencoded',
-		accept: 'application/json',
-		'x-sveltekit-action': 'true'
-	},
-	body: 'email=drafter%40example.test&password=bench-password-1',
-	redirect: 'manual'
-});
-const cookie = signIn.headers
-	.getSetCookie()
-	.map((c) => c.split(';')[0])
-	.join('; ');
-const { token } = await json(
-	await fetch(`${baseUrl}/api/v1/me/tokens`, {
-		method: 'POST',
-		headers: { cookie, origin: baseUrl, 'content-type': 'application/json' },
-		body: JSON.stringify({ name: 'bench' })
-	})
-);
+const token = await apiTokenFor(baseUrl, 'drafter@example.test', 'bench-password-1');
 const auth = { authorization: `Bearer ${token}` };
 await json(
 	await fetch(`${baseUrl}/api/v1/teams/kestrel/drawings`, {

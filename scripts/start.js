@@ -5,6 +5,7 @@ import { spawn, spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { isLoopbackHost } from '../src/lib/server/loopback.js';
 import { readLockHolder } from './lock.js';
 
 const root = resolve(import.meta.dirname, '..');
@@ -17,7 +18,10 @@ const env = { ...process.env };
 env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= 'true';
 const dataDir = resolve(env.DATA_DIR || './data');
 const port = Number(env.PORT || 3000);
-const host = env.HOST || '0.0.0.0';
+// The mail stand-in shows every message it caught (sign-in and reset links among them) at
+// /dev/mail: with it, listen on this machine alone unless HOST says otherwise.
+const mailStandIn = !env.SMTP_URL;
+const host = env.HOST || (mailStandIn ? '127.0.0.1' : '0.0.0.0');
 const say = (line) => console.log(`[checkplate] ${line}`);
 
 function fail(message) {
@@ -104,10 +108,19 @@ if (!env.SMTP_URL) {
 	env.SMTP_URL = smtp.url;
 	env.MAIL_FAKE_DIR = mailDir;
 	closers.push(smtp.close);
-	running.push(`mail stand-in   ${smtp.url} (caught mail at /dev/mail)`);
+	running.push(
+		isLoopbackHost(host)
+			? `mail stand-in   ${smtp.url} (caught mail at /dev/mail)`
+			: `mail stand-in   ${smtp.url} (caught mail in ${mailDir})`
+	);
 }
 
-const publicHost = host === '0.0.0.0' || host === '::' ? 'localhost' : host;
+const publicHost =
+	!env.HOST || host === '0.0.0.0' || host === '::'
+		? 'localhost'
+		: host.includes(':')
+			? `[${host}]`
+			: host;
 env.PORT = String(port);
 env.HOST = host;
 env.ORIGIN ||= `http://${publicHost}:${port}`;
@@ -160,5 +173,18 @@ if (!stopping) {
 		`database        ${env.DATABASE_URL ? 'PostgreSQL server (DATABASE_URL)' : `embedded, in ${join(dataDir, 'pglite')}`}`
 	);
 	for (const line of running) say(line);
+	if (mailStandIn && !isLoopbackHost(host)) {
+		const bar = '!'.repeat(78);
+		console.log(
+			[
+				bar,
+				`!! The app listens on ${host}, beyond this machine, with the mail stand-in: caught mail`,
+				'!! cannot be read at /dev/mail here (it answers 404), since it holds sign-in and reset',
+				`!! links. Read it in ${join(dataDir, 'mail')}, set SMTP_URL for real mail, or start`,
+				'!! with HOST=127.0.0.1 to read it in the browser.',
+				bar
+			].join('\n')
+		);
+	}
 	say(`Checkplate is running at ${url}   (Ctrl-C stops everything)`);
 }

@@ -17,6 +17,8 @@ declare global {
 		interface Locals {
 			/** The signed-in user (session cookie or, on the API, a personal token). */
 			user: CurrentUser | null;
+			/** True when the user was named by a personal API token rather than a session. */
+			viaApiToken: boolean;
 		}
 	}
 }

@@ -3,14 +3,32 @@ import { sequence } from '@sveltejs/kit/hooks';
 import { env } from '$env/dynamic/private';
 import { apiErrors } from '$lib/server/api';
 import { authHandle, userFromSession } from '$lib/server/auth';
+import { bodyLimit } from '$lib/server/body-limit';
 import { config } from '$lib/server/config';
 import { db, startDatabase } from '$lib/server/db';
 import { userForApiToken } from '$lib/server/db/queries/api-tokens';
 import { demoPassword, demoPeople } from '$lib/server/demo/people';
 import { startOutboxWorker } from '$lib/server/mail/worker';
+import { preparePdfCheck } from '$lib/server/pdf';
 import { getStorage } from '$lib/server/services';
 
+/**
+ * An unhandled rejection is a bug (every promise on a request's path must be handled), but it
+ * must not stop the server for everyone: log it loudly instead of Node's default exit. The app
+ * tests fail when this line appears (tests/app/unhandled.ts), so no such bug hides there.
+ */
+function logUnhandledRejections() {
+	const key = Symbol.for('checkplate.unhandledRejection');
+	const marked = process as unknown as Record<symbol, boolean>;
+	if (marked[key]) return;
+	marked[key] = true;
+	process.on('unhandledRejection', (reason) => {
+		console.error('[checkplate] UNHANDLED REJECTION (a bug: please report it)', reason);
+	});
+}
+
 export const init: ServerInit = async () => {
+	logUnhandledRejections();
 	const database = await startDatabase();
 	await database.migrate();
 	if (env.SEED_DEMO !== '0') {
@@ -23,6 +41,7 @@ export const init: ServerInit = async () => {
 		);
 	}
 	startOutboxWorker();
+	await preparePdfCheck(config.pdfLimits);
 };
 
 const securityHeaders: Handle = async ({ event, resolve }) => {
@@ -64,6 +83,7 @@ const sameOrigin: Handle = async ({ event, resolve }) => {
 
 const currentUser: Handle = async ({ event, resolve }) => {
 	const bearer = event.url.pathname.startsWith('/api/') ? bearerOf(event.request) : null;
+	event.locals.viaApiToken = Boolean(bearer);
 	if (bearer) {
 		const user = await userForApiToken(db, bearer);
 		event.locals.user = user ? { id: user.id, name: user.name, email: user.email } : null;
@@ -73,7 +93,14 @@ const currentUser: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(securityHeaders, apiErrors, sameOrigin, authHandle, currentUser);
+export const handle = sequence(
+	securityHeaders,
+	apiErrors,
+	bodyLimit,
+	sameOrigin,
+	authHandle,
+	currentUser
+);
 
 export const handleError: HandleServerError = ({ error, event, status }) => {
 	const errorId = crypto.randomUUID();

@@ -1,4 +1,6 @@
 import { inject } from 'vitest';
+import { readdirSync, statSync } from 'node:fs';
+import { join } from 'node:path';
 
 export const baseUrl = inject('baseUrl');
 export const dataDir = inject('dataDir');
@@ -113,4 +115,19 @@ export async function newVerifiedUser(client: Client, name = 'Ada Reviewer') {
 	await client.get(linkIn(mail, '/verify'));
 	await client.signIn(email, password);
 	return { email, password };
+}
+
+/** What storage and the temp folder hold: nothing may be left behind by a refused upload. */
+export function leftovers() {
+	const files = (dir: string): string[] => {
+		try {
+			return readdirSync(dir).flatMap((name) => {
+				const path = join(dir, name);
+				return statSync(path).isDirectory() ? files(path) : [path];
+			});
+		} catch {
+			return [];
+		}
+	};
+	return { objects: files(join(dataDir, 's3')).length, temp: files(join(dataDir, 'tmp')).length };
 }

@@ -1,10 +1,8 @@
 import { createHash } from 'node:crypto';
-import { readdirSync, statSync } from 'node:fs';
-import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { encryptedPdf, notAPdf, truncatedPdf, twoSheetPdf } from '../fixtures/pdfs';
 import { unique } from '../shared';
-import { baseUrl, bearerCall, Client, dataDir, newVerifiedUser } from './client';
+import { baseUrl, bearerCall, Client, leftovers, newVerifiedUser } from './client';
 
 const drafter = new Client();
 const checker = new Client();
@@ -44,21 +42,6 @@ function upload(
 		headers: { authorization: `Bearer ${token}` },
 		body: form
 	});
-}
-
-/** What storage and the temp folder hold: nothing may be left behind by a refused upload. */
-function leftovers() {
-	const files = (dir: string): string[] => {
-		try {
-			return readdirSync(dir).flatMap((name) => {
-				const path = join(dir, name);
-				return statSync(path).isDirectory() ? files(path) : [path];
-			});
-		} catch {
-			return [];
-		}
-	};
-	return { objects: files(join(dataDir, 's3')).length, temp: files(join(dataDir, 'tmp')).length };
 }
 
 describe('drawings', () => {

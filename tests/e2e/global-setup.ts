@@ -1,5 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { appendFileSync, mkdtempSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -24,14 +24,21 @@ export function freePort(): Promise<number> {
 	});
 }
 
-let app: ChildProcess | undefined;
-let dataDir: string | undefined;
+export interface StartedApp {
+	baseUrl: string;
+	process: ChildProcess;
+	/** Everything the app printed so far. */
+	output: () => string;
+	stop: () => Promise<void>;
+}
 
-/** Starts the built app the way `npm start` does, on a free port with a temporary data dir. */
-export default async function setup(project: TestProject) {
-	dataDir = mkdtempSync(join(tmpdir(), 'checkplate-e2e-'));
+/**
+ * Starts the built app the way `npm start` does, on a free port, with `env` over the test
+ * defaults (stand-ins for every service, the demo password, a 20 MB upload limit).
+ */
+export async function startApp(dataDir: string, env: Record<string, string> = {}) {
 	const port = await freePort();
-	app = spawn(process.execPath, ['scripts/start.js'], {
+	const child = spawn(process.execPath, ['scripts/start.js'], {
 		env: {
 			...process.env,
 			DATA_DIR: dataDir,
@@ -41,31 +48,52 @@ export default async function setup(project: TestProject) {
 			S3_ENDPOINT: '',
 			SMTP_URL: '',
 			DEMO_PASSWORD: demoPassword,
-			MAX_UPLOAD_MB: '20'
+			MAX_UPLOAD_MB: '20',
+			...env
 		},
-		stdio: ['ignore', 'pipe', 'inherit']
+		stdio: ['ignore', 'pipe', 'pipe']
 	});
 	let output = '';
+	// Also kept in a file, which tests/app/unhandled.ts reads after each test file.
+	const log = join(dataDir, 'app.log');
+	child.stderr!.on('data', (chunk: Buffer) => {
+		output += chunk.toString();
+		appendFileSync(log, chunk);
+		process.stderr.write(chunk);
+	});
 	const baseUrl = await new Promise<string>((resolve, reject) => {
 		const timer = setTimeout(() => reject(new Error(`app did not start:\n${output}`)), 180_000);
-		app!.stdout!.on('data', (chunk: Buffer) => {
+		child.stdout!.on('data', (chunk: Buffer) => {
 			output += chunk.toString();
+			appendFileSync(log, chunk);
 			const match = /running at (http:\/\/\S+)/.exec(output);
 			if (match) {
 				clearTimeout(timer);
 				resolve(match[1]);
 			}
 		});
-		app!.once('exit', (code) => reject(new Error(`app exited with ${code}:\n${output}`)));
+		child.once('exit', (code) => reject(new Error(`app exited with ${code}:\n${output}`)));
 	});
-	project.provide('baseUrl', baseUrl);
+	const stop = async () => {
+		if (child.exitCode !== null) return;
+		child.kill('SIGINT');
+		await new Promise((done) => child.once('exit', done));
+	};
+	return { baseUrl, process: child, output: () => output, stop } satisfies StartedApp;
+}
+
+let app: StartedApp | undefined;
+let dataDir: string | undefined;
+
+/** Starts the built app the way `npm start` does, on a free port with a temporary data dir. */
+export default async function setup(project: TestProject) {
+	dataDir = mkdtempSync(join(tmpdir(), 'checkplate-e2e-'));
+	app = await startApp(dataDir);
+	project.provide('baseUrl', app.baseUrl);
 	project.provide('dataDir', dataDir);
 
 	return async () => {
-		if (app && app.exitCode === null) {
-			app.kill('SIGINT');
-			await new Promise((done) => app!.once('exit', done));
-		}
+		await app?.stop();
 		if (dataDir) rmSync(dataDir, { recursive: true, force: true });
 	};
 }

@@ -74,4 +74,35 @@ describe('HTTP Range parsing', () => {
 		expect(parseRange(null, 1000)).toBeNull();
 		expect(parseRange('items=1-2', 1000)).toBeNull();
 	});
+	it('aborts the multipart upload and keeps nothing when the body breaks off midway', async () => {
+		const sentCommands: string[] = [];
+		storage.client.middlewareStack.add(
+			(next, context) => (args) => {
+				sentCommands.push(context.commandName as string);
+				return next(args);
+			},
+			{ step: 'initialize', name: 'recordCommands' }
+		);
+		try {
+			// Two 8 MB parts go out before the source fails, as a client cut off mid-upload leaves it.
+			let sent = 0;
+			const broken = new Readable({
+				read() {
+					if (sent >= 18 * 1024 * 1024) {
+						this.destroy(new Error('client went away'));
+						return;
+					}
+					sent += 1024 * 1024;
+					this.push(randomBytes(1024 * 1024));
+				}
+			});
+			await expect(storage.put('test/broken.bin', broken)).rejects.toThrow('client went away');
+			expect(sentCommands).toContain('CreateMultipartUploadCommand');
+			expect(sentCommands).toContain('AbortMultipartUploadCommand');
+			expect(sentCommands).not.toContain('CompleteMultipartUploadCommand');
+			expect(await storage.size('test/broken.bin')).toBeNull();
+		} finally {
+			storage.client.middlewareStack.remove('recordCommands');
+		}
+	});
 });

@@ -35,3 +35,19 @@ export const apiTokenInput = z.object({
 		.refine((d) => [7, 30, 90, 365].includes(d), { error: 'Choose 7, 30, 90 or 365 days' })
 		.default(90)
 });
+
+/** `?before=` (an activity id) and `?limit=` of the activity trail; both optional. */
+export const activityQuery = z.object({
+	before: z.coerce
+		.number({ error: 'before must be an activity number' })
+		.int({ error: 'before must be a whole number' })
+		.min(1, { error: 'before must be 1 or more' })
+		.max(Number.MAX_SAFE_INTEGER)
+		.optional(),
+	limit: z.coerce
+		.number({ error: 'limit must be a number' })
+		.int({ error: 'limit must be a whole number' })
+		.min(1, { error: 'limit must be between 1 and 500' })
+		.max(500, { error: 'limit must be between 1 and 500' })
+		.optional()
+});

@@ -12,16 +12,21 @@ export async function readJson<S extends z.ZodType>(
 	} catch {
 		error(400, { message: 'The body must be JSON', code: 'invalid' });
 	}
-	return validated(schema, body);
+	return parseOrRefuse(schema, body);
 }
 
-/** Reads and validates the query string the same way (`?version=` and the like). */
+/**
+ * Reads and validates query parameters (empty ones count as absent); a bad one is a 400
+ * `invalid` naming it, never a fault further down.
+ */
 export function readQuery<S extends z.ZodType>(url: URL, schema: S): z.infer<S> {
-	return validated(schema, Object.fromEntries(url.searchParams));
+	const values: Record<string, string> = {};
+	for (const [name, value] of url.searchParams) if (value !== '') values[name] = value;
+	return parseOrRefuse(schema, values);
 }
 
-function validated<S extends z.ZodType>(schema: S, data: unknown): z.infer<S> {
-	const parsed = schema.safeParse(data);
+function parseOrRefuse<S extends z.ZodType>(schema: S, input: unknown): z.infer<S> {
+	const parsed = schema.safeParse(input);
 	if (!parsed.success) {
 		const fields = z.flattenError(parsed.error).fieldErrors as Record<string, string[]>;
 		const first = Object.entries(fields)[0];

@@ -19,10 +19,25 @@ const codeForStatus: Record<number, string> = {
  * SvelteKit's `error(status, {message, code, …})`; this puts the body into that shape.
  */
 export const apiErrors: Handle = async ({ event, resolve }) => {
+	const api = event.url.pathname.startsWith('/api/');
+	// SvelteKit answers a route's `error()` as an HTML page unless the client asks for JSON;
+	// a script that sends no Accept header still gets the message.
+	if (api && !event.request.headers.get('accept')?.includes('application/json')) {
+		event.request.headers.set('accept', 'application/json');
+	}
 	const response = await resolve(event);
-	if (!event.url.pathname.startsWith('/api/') || response.status < 400) return response;
-	if (!response.headers.get('content-type')?.includes('application/json')) {
-		return jsonError(response, { message: (await response.text()) || response.statusText });
+	if (!api || response.status < 400) return response;
+	const type = response.headers.get('content-type') ?? '';
+	if (!type.includes('application/json')) {
+		// An HTML error page (an unknown path, for one) is no message for a script.
+		const text = type.includes('text/html') ? '' : (await response.text()).trim();
+		const message =
+			text && text.length <= 300
+				? text
+				: response.status === 404
+					? `No such API path: ${event.request.method} ${event.url.pathname}`
+					: response.statusText || 'Request failed';
+		return jsonError(response, { message });
 	}
 	const body = (await response.json()) as Record<string, unknown>;
 	if (body && typeof body.error === 'object') return jsonError(response, null, body);

@@ -14,7 +14,7 @@ import { startDatabase } from './db';
 import { accounts, users, verificationTokens } from './db/schema';
 import { clearAttempts, isRateLimited, recordAttempt } from './db/queries/attempts';
 import type { Actor } from './db/queries/activity';
-import { getUserByEmail, getUserById } from './db/queries/users';
+import { getUserByEmail, getUserById, proveEmail } from './db/queries/users';
 import { queueMail } from './mail/outbox';
 import { signInLinkMail } from './mail/templates';
 import { nudgeOutbox } from './mail/worker';
@@ -100,6 +100,14 @@ async function buildConfig(): Promise<AuthConfig> {
 			})
 		],
 		callbacks: {
+			// A sign-in link proves the address. Anyone could have signed up with it before and set
+			// the password: on the first proof that password, every session and API token ends.
+			async signIn({ user, account }) {
+				if (account?.type !== 'email' || !user.email) return true;
+				const row = await getUserByEmail(db, user.email);
+				if (row && !row.emailVerified) await proveEmail(db, row.id, { passwordHash: null });
+				return true;
+			},
 			async jwt({ token, user }) {
 				if (user?.id) {
 					const row = await getUserById(db, user.id);

@@ -2,7 +2,13 @@ import { z } from 'zod';
 import { adviseInput, fitInput, sizeInput, sizeQuery } from '$lib/schemas/calc';
 import { drawingInput, drawingPatch, revisionPatch } from '$lib/schemas/drawings';
 import { deleteQuery, featureInput, featurePatch, featureResponse } from '$lib/schemas/features';
-import { apiTokenInput, memberInput, roleInput, teamInput } from '$lib/schemas/teams';
+import {
+	activityQuery,
+	apiTokenInput,
+	memberInput,
+	roleInput,
+	teamInput
+} from '$lib/schemas/teams';
 
 type Method = 'get' | 'post' | 'patch' | 'delete';
 interface Operation {
@@ -26,7 +32,7 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 	'/me/tokens': {
 		get: { summary: 'Your personal API tokens (never the secrets)', success: 200 },
 		post: {
-			summary: 'Create a token; the secret is in this answer only',
+			summary: 'Create a token (signed in, not with a token); the secret is in this answer only',
 			body: apiTokenInput,
 			success: 201
 		}
@@ -58,7 +64,11 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 	},
 	'/teams/{team}/invitations/{id}': { delete: { summary: 'Withdraw an invitation', success: 204 } },
 	'/teams/{team}/activity': {
-		get: { summary: 'The append-only activity trail, newest first', success: 200 }
+		get: {
+			summary: 'The append-only activity trail, newest first',
+			query: activityQuery,
+			success: 200
+		}
 	},
 	'/teams/{team}/drawings': {
 		get: { summary: 'Drawings with their latest revision', success: 200 },
@@ -160,6 +170,21 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 const jsonSchema = (schema: z.ZodType) =>
 	z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any', target: 'openapi-3.0' });
 
+/** The error codes the API answers with today, by status (PRODUCT.md §6): add each new one. */
+export const errorCodes: Record<number, string[]> = {
+	400: ['invalid'],
+	401: ['unauthenticated'],
+	403: ['forbidden'],
+	404: ['not_found'],
+	405: ['method_not_allowed'],
+	409: ['conflict', 'stale', 'frozen'],
+	413: ['too_large'],
+	415: ['not_pdf', 'unsupported_media_type'],
+	422: ['unreadable_pdf', 'encrypted_pdf', 'too_many_pages', 'duplicate_revision'],
+	429: ['rate_limited'],
+	500: ['internal']
+};
+
 const responseSchema = (schema: z.ZodType) =>
 	z.toJSONSchema(schema, { io: 'output', unrepresentable: 'any', target: 'openapi-3.0' });
 
@@ -255,7 +280,12 @@ export function openApiDocument(origin: string) {
 							type: 'object',
 							required: ['code', 'message'],
 							properties: {
-								code: { type: 'string' },
+								code: {
+									type: 'string',
+									description: Object.entries(errorCodes)
+										.map(([status, codes]) => `${status}: ${codes.join(', ')}`)
+										.join('; ')
+								},
 								message: { type: 'string' },
 								position: { type: 'integer', description: 'For a bad callout' },
 								current: { type: 'object', description: 'For 409 stale' }

@@ -61,7 +61,17 @@ export function createStorage(settings: StorageSettings) {
 			queueSize: 2,
 			partSize: 8 * 1024 * 1024
 		});
-		await Promise.all([pipeline(body, counter, passThrough), upload.done()]);
+		const sending = upload.done();
+		try {
+			await Promise.all([pipeline(body, counter, passThrough), sending]);
+		} catch (err) {
+			// Whichever side failed, stop the other: the body is not read on, and the upload, its
+			// source broken, ends by aborting the multipart upload so the bucket keeps no parts.
+			body.destroy(err as Error);
+			passThrough.destroy(err as Error);
+			await settleWithin(sending, 30_000, () => upload.abort());
+			throw err;
+		}
 		const stored: StoredObject = { key, size, sha256: hash.digest('hex') };
 		await verify(stored);
 		return stored;
@@ -119,6 +129,19 @@ export function createStorage(settings: StorageSettings) {
 }
 
 export type Storage = ReturnType<typeof createStorage>;
+
+/** Waits for `promise` to settle, calling `giveUp` if it has not within `ms`. */
+async function settleWithin(promise: Promise<unknown>, ms: number, giveUp: () => unknown) {
+	let timer: ReturnType<typeof setTimeout> | undefined;
+	const late = new Promise<void>((resolve) => {
+		timer = setTimeout(() => {
+			void Promise.resolve(giveUp()).catch(() => {});
+			resolve();
+		}, ms);
+	});
+	await Promise.race([promise.catch(() => {}), late]);
+	clearTimeout(timer);
+}
 
 /**
  * Parses an HTTP Range header for one range of a resource of `size` bytes.

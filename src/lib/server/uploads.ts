@@ -2,7 +2,7 @@ import { randomUUID, createHash } from 'node:crypto';
 import { createReadStream, createWriteStream } from 'node:fs';
 import { mkdir, rm } from 'node:fs/promises';
 import { join } from 'node:path';
-import { PassThrough, Readable, Transform } from 'node:stream';
+import { PassThrough, Readable, type Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import busboy from 'busboy';
 import { nextRevisionLetter } from '$lib/revision-letters';
@@ -15,6 +15,7 @@ import {
 	listRevisions,
 	RevisionLetterTaken
 } from './db/queries/drawings';
+import { config } from './config';
 import { inspectPdf } from './pdf';
 import type { Storage, StoredObject } from './storage';
 import type { Actor } from './db/queries/activity';
@@ -43,12 +44,84 @@ interface Received {
 	stored?: StoredObject;
 }
 
-type Written = { size: number; sha256: string; tooLarge: boolean };
+interface Copied {
+	size: number;
+	sha256: string;
+	stored?: StoredObject;
+}
+
+/** Waits until `stream` takes more; fails when it is closed or broken meanwhile. */
+function drained(stream: Writable) {
+	return new Promise<void>((resolve, reject) => {
+		const done = (err?: Error | null) => {
+			stream.off('drain', onDrain);
+			stream.off('error', done);
+			stream.off('close', onClose);
+			if (err) reject(err);
+			else resolve();
+		};
+		const onDrain = () => done();
+		const onClose = () => done(stream.errored ?? new Error('The storage upload stopped'));
+		stream.once('drain', onDrain);
+		stream.once('error', done);
+		stream.once('close', onClose);
+	});
+}
+
+/**
+ * Copies the uploaded file to `path`, hashing and counting, and, given `store`, into storage at
+ * the same time. Settles only when both transfers have: on any failure the storage upload is
+ * stopped (the multipart upload aborted) before this rejects.
+ */
+async function copyFile(
+	source: Readable,
+	path: string,
+	store?: { storage: Storage; key: string }
+): Promise<Copied> {
+	const hash = createHash('sha256');
+	let size = 0;
+	const toStorage = store ? new PassThrough() : null;
+	const storing =
+		store && toStorage ? store.storage.put(store.key, toStorage, 'application/pdf') : null;
+	// Awaited below on every path; this only keeps an early failure from counting as unhandled.
+	storing?.catch(() => {});
+	try {
+		await pipeline(
+			source,
+			async function* (chunks: AsyncIterable<Buffer>) {
+				for await (const chunk of chunks) {
+					hash.update(chunk);
+					size += chunk.length;
+					if (toStorage) {
+						if (toStorage.destroyed) throw toStorage.errored ?? new Error('Storage upload stopped');
+						if (!toStorage.write(chunk)) await drained(toStorage);
+					}
+					yield chunk;
+				}
+			},
+			createWriteStream(path)
+		);
+		toStorage?.end();
+		return { size, sha256: hash.digest('hex'), stored: storing ? await storing : undefined };
+	} catch (err) {
+		toStorage?.destroy(err as Error);
+		await storing?.catch(() => {});
+		throw err;
+	}
+}
+
+const settle = <T>(promise: Promise<T>) =>
+	promise.then(
+		(value) => ({ ok: true as const, value }),
+		(error: unknown) => ({ ok: false as const, error })
+	);
 
 /**
  * Streams a multipart body to a temporary file (never into memory), hashing and counting as it
  * goes, and, given `store`, into storage at the same time so the two transfers overlap. Only the
- * field `file` is kept; anything over `maxBytes` is refused and whatever was stored is removed.
+ * field `file` is kept; anything over `maxBytes` is refused. Every stream and promise is settled
+ * on every path (a body cut short, a client gone, a limit reached, storage failing): whatever
+ * went to storage or the temp folder is removed, and nothing is left to reject unhandled.
  */
 export async function receiveUpload(
 	request: Request,
@@ -62,82 +135,76 @@ export async function receiveUpload(
 	if (!contentType.startsWith('multipart/form-data') || !request.body) {
 		return refuse(400, 'invalid', 'Send the drawing as multipart/form-data in a field named file.');
 	}
+	let parser: ReturnType<typeof busboy>;
+	try {
+		parser = busboy({
+			headers: { 'content-type': contentType },
+			limits: { files: 1, fileSize: options.maxBytes, fields: 20, fieldSize: 10_000 }
+		});
+	} catch (err) {
+		return refuse(400, 'invalid', `The multipart body cannot be read: ${(err as Error).message}`);
+	}
 	await mkdir(options.tempDir, { recursive: true });
 	const path = join(options.tempDir, `${randomUUID()}.upload`);
 	const fields: Record<string, string> = {};
-	let written: Promise<Written> | null = null;
-	let stored: Promise<StoredObject> | null = null;
+	let fileStream: Readable | null = null;
+	let copying: Promise<Copied> | null = null;
+	let tooLarge = false;
 
-	const parser = busboy({
-		headers: { 'content-type': contentType },
-		limits: { files: 1, fileSize: options.maxBytes, fields: 20, fieldSize: 10_000 }
-	});
 	parser.on('field', (name, value) => {
 		fields[name] = value;
 	});
 	parser.on('file', (name, stream) => {
-		if (name !== 'file' || written) {
+		if (name !== 'file' || copying) {
 			stream.resume();
 			return;
 		}
-		const hash = createHash('sha256');
-		let size = 0;
-		let tooLarge = false;
+		fileStream = stream;
+		// Past the limit busboy drops the rest of the file: stop the copy (and the storage upload)
+		// now rather than store what will be refused.
 		stream.on('limit', () => {
 			tooLarge = true;
+			stream.destroy(new Error('The file is over the size limit'));
 		});
-		const counter = new Transform({
-			transform(chunk: Buffer, _encoding, done) {
-				hash.update(chunk);
-				size += chunk.length;
-				done(null, chunk);
-			}
-		});
-		const toDisk = new PassThrough();
-		counter.pipe(toDisk);
-		if (options.store) {
-			const toStorage = new PassThrough();
-			counter.pipe(toStorage);
-			stored = options.store.storage.put(options.store.key, toStorage, 'application/pdf');
-		}
-		written = Promise.all([
-			pipeline(stream, counter),
-			pipeline(toDisk, createWriteStream(path))
-		]).then(() => ({ size, sha256: hash.digest('hex'), tooLarge }));
+		copying = copyFile(stream, path, options.store);
+		copying.catch(() => {}); // settled below
 	});
 
+	const body = Readable.fromWeb(request.body as never);
+	const parsed = await settle(pipeline(body, parser));
+	// A body that broke off leaves the file stream open in some cases: end the copy with it.
+	const broken = fileStream as Readable | null;
+	if (!parsed.ok && broken && !broken.destroyed) broken.destroy(parsed.error as Error);
+	const copied = copying ? await settle(copying as Promise<Copied>) : null;
+
+	// Removing a key that was never written is harmless; one written but refused must go.
 	const discard = async () => {
 		await rm(path, { force: true });
 		if (options.store) await options.store.storage.remove(options.store.key).catch(() => {});
 	};
-	try {
-		await pipeline(Readable.fromWeb(request.body as never), parser);
-		if (!written) return refuse(400, 'invalid', 'No file: send the drawing in a field named file.');
-		const [file, object] = await Promise.all([
-			written as Promise<Written>,
-			(stored as Promise<StoredObject> | null)?.catch((err: Error) => err) ?? null
-		]);
-		if (file.tooLarge) {
-			await discard();
-			const mb = Math.round(options.maxBytes / 1024 / 1024);
-			return refuse(413, 'too_large', `The file is larger than the ${mb} MB limit.`);
-		}
-		if (object instanceof Error) throw object;
-		return {
-			ok: true,
-			path,
-			size: file.size,
-			sha256: file.sha256,
-			fields,
-			stored: object ?? undefined
-		};
-	} catch (err) {
+	const mb = Math.round(options.maxBytes / 1024 / 1024);
+	if (tooLarge || (!parsed.ok && (parsed.error as { status?: number }).status === 413)) {
 		await discard();
-		if ((err as { status?: number }).status === 413) {
-			return refuse(413, 'too_large', 'The upload is larger than the limit.');
-		}
-		throw err;
+		return refuse(413, 'too_large', `The file is larger than the ${mb} MB limit.`);
 	}
+	if (!parsed.ok) {
+		await discard();
+		return refuse(
+			400,
+			'invalid',
+			'The upload ended before it was complete (the connection broke or the body was cut short). Send it again.'
+		);
+	}
+	if (!copied) {
+		await discard();
+		return refuse(400, 'invalid', 'No file: send the drawing in a field named file.');
+	}
+	if (!copied.ok) {
+		// The body arrived whole, so the fault is ours (disk or storage).
+		await discard();
+		throw copied.error;
+	}
+	return { ok: true, path, fields, ...copied.value };
 }
 
 export const revisionStorageKey = (drawing: Pick<DrawingRow, 'teamId' | 'id'>) =>
@@ -162,7 +229,7 @@ export async function storeRevision(
 		if (!fields.success) {
 			return refuse(400, 'invalid', fields.error.issues[0]?.message ?? 'Invalid fields');
 		}
-		const pdf = await inspectPdf(upload.path, upload.size);
+		const pdf = await inspectPdf(upload.path, upload.size, config.pdfLimits);
 		if (!pdf.ok) return refuse(pdf.status, pdf.code, pdf.message);
 		const previous = await latestRevision(db, drawing.id);
 		if (previous && previous.sha256 === upload.sha256) {

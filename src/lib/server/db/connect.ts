@@ -108,6 +108,10 @@ const migrationLockKey = 7_302_114_551;
 
 export async function openPostgres(url: string): Promise<Database> {
 	const pool = new pg.Pool({ connectionString: url, max: 10 });
+	// An idle connection ended by the server (a restart, an administrator, a dropped test
+	// database) is reported here; without a listener node-postgres throws it and the process
+	// ends. The pool replaces the connection on the next query.
+	pool.on('error', (err) => console.error(`PostgreSQL connection lost: ${err.message}`));
 	const db = drizzlePg(pool, { schema }) as unknown as Db;
 	return {
 		db,

@@ -5,7 +5,8 @@ import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async () => {
 	const directory = config.mailFakeDir;
-	// Only while the local mail fake is in use: with a real SMTP server there is nothing to show.
-	if (!directory) error(404, 'Not found');
+	// Only while the local mail fake is in use (with a real SMTP server there is nothing to show)
+	// and only while nobody beyond this machine can ask: the mail holds sign-in and reset links.
+	if (!directory || !config.listensOnLoopbackOnly) error(404, 'Not found');
 	return { messages: await listCaughtMail(directory) };
 };

@@ -47,3 +47,13 @@ export async function consumeUserToken(
 	if (used.length === 0) return { ok: false, reason: 'invalid' };
 	return { ok: true, userId: row.userId };
 }
+
+/** Ends every unused link of one purpose for the user: only a link issued after this works. */
+export async function retireUserTokens(db: Db, userId: string, purpose: Purpose) {
+	await db
+		.update(userTokens)
+		.set({ usedAt: new Date() })
+		.where(
+			and(eq(userTokens.userId, userId), eq(userTokens.purpose, purpose), isNull(userTokens.usedAt))
+		);
+}

@@ -1,6 +1,7 @@
-import { eq, sql } from 'drizzle-orm';
+import { and, eq, isNull, sql } from 'drizzle-orm';
+import type { PgUpdateSetSource } from 'drizzle-orm/pg-core';
 import type { Db } from '../connect';
-import { users } from '../schema';
+import { apiTokens, users } from '../schema';
 
 export const normaliseEmail = (email: string) => email.trim().toLowerCase();
 
@@ -34,25 +35,63 @@ export async function createUser(
 	return user ?? null;
 }
 
-export async function markEmailVerified(db: Db, userId: string) {
-	await db
-		.update(users)
-		.set({ emailVerified: sql`coalesce(${users.emailVerified}, now())` })
-		.where(eq(users.id, userId));
+/**
+ * Someone used a link mailed to the address: it is proven. What anyone who typed the address
+ * could have set before ends: every session and API token. `set` gives the password (and name)
+ * that came with the proof: `passwordHash: null` when none did; left out, the pending password
+ * stays (a verification link, which only the newest sign-up's password holds).
+ */
+export async function proveEmail(
+	db: Db,
+	userId: string,
+	set: { passwordHash?: string | null; name?: string } = {}
+) {
+	await endCredentials(db, userId, {
+		...set,
+		emailVerified: sql`coalesce(${users.emailVerified}, now())`
+	});
 }
 
-/** Sets a new password and ends every session signed in before it. */
+/**
+ * A sign-up again on an address nobody has proven yet: the newest sign-up's name and password
+ * replace the pending ones (its link is the only one that still works, see `signUp`).
+ */
+export async function replacePendingSignUp(
+	db: Db,
+	userId: string,
+	input: { name: string; passwordHash: string }
+) {
+	const [user] = await db
+		.update(users)
+		.set({ name: input.name, passwordHash: input.passwordHash })
+		.where(and(eq(users.id, userId), isNull(users.emailVerified)))
+		.returning();
+	return user ?? null;
+}
+
+/**
+ * Ends every credential the user holds: sessions (tokens carry the generation they were issued
+ * in) and personal API tokens. Run on a password reset or change and on "sign out everywhere".
+ */
+async function endCredentials(db: Db, userId: string, set: PgUpdateSetSource<typeof users>) {
+	await db.transaction(async (tx) => {
+		await tx
+			.update(users)
+			.set({ ...set, sessionGeneration: sql`${users.sessionGeneration} + 1` })
+			.where(eq(users.id, userId));
+		await tx
+			.update(apiTokens)
+			.set({ revokedAt: new Date() })
+			.where(and(eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt)));
+	});
+}
+
+/** Sets a new password and ends every session and API token issued before it. */
 export async function setPassword(db: Db, userId: string, passwordHash: string) {
-	await db
-		.update(users)
-		.set({ passwordHash, sessionGeneration: sql`${users.sessionGeneration} + 1` })
-		.where(eq(users.id, userId));
+	await endCredentials(db, userId, { passwordHash });
 }
 
-/** Ends every session of the user at once: tokens carry the generation they were issued in. */
+/** Ends every session and API token of the user at once. */
 export async function endAllSessions(db: Db, userId: string) {
-	await db
-		.update(users)
-		.set({ sessionGeneration: sql`${users.sessionGeneration} + 1` })
-		.where(eq(users.id, userId));
+	await endCredentials(db, userId, {});
 }

@@ -4,7 +4,7 @@ import { newPassword } from '$lib/schemas/auth';
 import { signInWith } from '$lib/server/auth';
 import { db } from '$lib/server/db';
 import { acceptInvitation, findInvitation } from '$lib/server/db/queries/invitations';
-import { createUser, getUserByEmail } from '$lib/server/db/queries/users';
+import { createUser, getUserByEmail, getUserById, proveEmail } from '$lib/server/db/queries/users';
 import { parseForm } from '$lib/server/forms';
 import { hashPassword } from '$lib/server/passwords';
 import type { Actions, PageServerLoad } from './$types';
@@ -13,7 +13,8 @@ export const load: PageServerLoad = async ({ params, locals }) => {
 	const found = await findInvitation(db, params.token);
 	if (!found.ok) return { state: found.reason };
 	const { invitation, teamName } = found;
-	const hasAccount = Boolean(await getUserByEmail(db, invitation.email));
+	// An account nobody has proven the address of yet is joined from the link like a new one.
+	const hasAccount = Boolean((await getUserByEmail(db, invitation.email))?.emailVerified);
 	return {
 		state: 'open' as const,
 		teamName,
@@ -45,12 +46,21 @@ export const actions: Actions = {
 			['name']
 		);
 		if (!form.ok) return form.failure;
-		const user = await createUser(db, {
-			name: form.data.name,
-			email: found.invitation.email,
-			passwordHash: await hashPassword(form.data.password),
-			emailVerified: new Date()
-		});
+		const passwordHash = await hashPassword(form.data.password);
+		const pending = await getUserByEmail(db, found.invitation.email);
+		if (pending?.emailVerified)
+			return fail(409, { message: 'An account with this address exists: sign in to accept.' });
+		// An unproven sign-up on this address may be anyone's: the link proves it, so this name and
+		// password replace that sign-up's and whatever it held ends.
+		if (pending) await proveEmail(db, pending.id, { passwordHash, name: form.data.name });
+		const user =
+			(pending && (await getUserById(db, pending.id))) ||
+			(await createUser(db, {
+				name: form.data.name,
+				email: found.invitation.email,
+				passwordHash,
+				emailVerified: new Date()
+			}));
 		if (!user)
 			return fail(409, { message: 'An account with this address exists: sign in to accept.' });
 		const result = await acceptInvitation(db, event.params.token, user);

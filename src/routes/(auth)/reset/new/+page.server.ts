@@ -2,7 +2,7 @@ import { fail, redirect } from '@sveltejs/kit';
 import { resetInput } from '$lib/schemas/auth';
 import { db } from '$lib/server/db';
 import { consumeUserToken } from '$lib/server/db/queries/tokens';
-import { markEmailVerified, setPassword } from '$lib/server/db/queries/users';
+import { proveEmail } from '$lib/server/db/queries/users';
 import { parseForm } from '$lib/server/forms';
 import { hashPassword } from '$lib/server/passwords';
 import type { Actions, PageServerLoad } from './$types';
@@ -25,9 +25,9 @@ export const actions: Actions = {
 						: 'That link is not valid or was already used. Ask for a new one.'
 			});
 		}
-		// Setting the password also ends every session signed in before.
-		await setPassword(db, used.userId, await hashPassword(form.data.password));
-		await markEmailVerified(db, used.userId);
+		// The link proves the address: the new password replaces any other, and every session and
+		// API token from before ends.
+		await proveEmail(db, used.userId, { passwordHash: await hashPassword(form.data.password) });
 		redirect(303, '/signin?reset=1');
 	}
 };

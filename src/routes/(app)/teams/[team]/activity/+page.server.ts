@@ -1,3 +1,5 @@
+import { activityQuery } from '$lib/schemas/teams';
+import { readQuery } from '$lib/server/api-input';
 import { db } from '$lib/server/db';
 import { listTeamActivity } from '$lib/server/db/queries/activity';
 import { requireMember } from '$lib/server/guards';
@@ -5,6 +7,6 @@ import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params, url }) => {
 	const { team } = await requireMember(params.team, 'viewUnreleased');
-	const before = Number(url.searchParams.get('before')) || undefined;
+	const { before } = readQuery(url, activityQuery.pick({ before: true }));
 	return { entries: await listTeamActivity(db, team.id, { before, limit: 100 }) };
 };

@@ -1,4 +1,6 @@
 import { json } from '@sveltejs/kit';
+import { activityQuery } from '$lib/schemas/teams';
+import { readQuery } from '$lib/server/api-input';
 import { db } from '$lib/server/db';
 import { listTeamActivity } from '$lib/server/db/queries/activity';
 import { requireMember } from '$lib/server/guards';
@@ -6,7 +8,6 @@ import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = async ({ params, url }) => {
 	const { team } = await requireMember(params.team, 'viewUnreleased');
-	const before = Number(url.searchParams.get('before')) || undefined;
-	const limit = Number(url.searchParams.get('limit')) || undefined;
+	const { before, limit } = readQuery(url, activityQuery);
 	return json(await listTeamActivity(db, team.id, { before, limit }));
 };
