@@ -13,7 +13,7 @@ import { regionRender } from '../src/lib/board/view';
 import { settled, uploadBoardDrawing, waitForSheet } from '../tests/e2e/board-drawing';
 import { launchBrowser, signIn } from '../tests/e2e/browser';
 import { openPdfjsAlone, renderAlone, servedPdfjs } from '../tests/e2e/pdfjs-alone';
-import { startApp } from './app';
+import { startApp } from '../tests/e2e/global-setup';
 import { naivePage } from './board-naive';
 
 const runs = Number(process.env.BENCH_RUNS || 5);
@@ -22,7 +22,7 @@ const buildDir = process.env.BUILD_DIR || 'build';
 if (!existsSync(`${buildDir}/handler.js`)) throw new Error('No build: run `npm run build` first');
 
 const dir = mkdtempSync(join(tmpdir(), 'checkplate-bench-board-'));
-const server = await startApp(dir, { DEMO_PASSWORD: 'demo-password-for-tests' });
+const server = await startApp(dir);
 const { baseUrl } = server;
 
 const median = (values: number[]) => percentile(values, 50);

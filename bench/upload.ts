@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Readable } from 'node:stream';
 import { bulkyPdf } from '../tests/fixtures/pdfs';
-import { startApp } from './app';
+import { startApp } from '../tests/e2e/global-setup';
 import { apiTokenFor } from './api-token';
 import { peakGrowth, resetPeak, rssBytes } from './memory';
 
@@ -24,7 +24,7 @@ const server = await startApp(dir, {
 	DEMO_PASSWORD: 'bench-password-1',
 	MAX_UPLOAD_MB: String(megabytes + 10)
 });
-const { app, baseUrl } = server;
+const { process: app, baseUrl } = server;
 const output = server.output();
 const s3Endpoint = /S3 stand-in\s+(\S+)/.exec(output)![1];
 const serverPid = Number(
