@@ -23,9 +23,9 @@ const unit = z.enum(UNITS, { error: 'units must be mm or in' });
 export const units = unit.default('mm');
 
 /** Decimals travel as strings; a JSON number is accepted and read as written. */
-const decimal = z.union([z.string().trim().min(1).max(40), z.number().finite()]).transform(String);
+export const decimal = z.union([z.string().trim().min(1).max(40), z.number().finite()]).transform(String);
 
-const callout = z
+export const callout = z
 	.string({ error: 'callout is required' })
 	.trim()
 	.min(1, { error: 'callout is required' })
@@ -84,18 +84,26 @@ const member = z.object({
 	notes: z.string().max(2000).optional()
 });
 
+/** A bought fastener as the fit's other member. */
+export const fastenerFields = z.object({
+	callout,
+	units: unit.optional(),
+	fixedPosition: decimal.optional(),
+	projection: z.object({ P: decimal, D: decimal }).optional()
+});
+
+/** Operating temperature in °C and the two materials' coefficients in 10⁻⁶/K. */
+export const temperatureInput = z.object({
+	operating: decimal,
+	holeCoefficient: decimal,
+	shaftCoefficient: decimal
+});
+
 export const fitInput = z
 	.object({
 		hole: member,
 		shaft: member.optional(),
-		fastener: z
-			.object({
-				callout,
-				units: unit.optional(),
-				fixedPosition: decimal.optional(),
-				projection: z.object({ P: decimal, D: decimal }).optional()
-			})
-			.optional(),
+		fastener: fastenerFields.optional(),
 		units,
 		standard,
 		generalTolerance: generalTolerance.optional(),
@@ -105,9 +113,7 @@ export const fitInput = z
 		sharedDatumFrame: z.boolean().default(false),
 		requiredMinClearance: decimal.optional(),
 		requiredMaxClearance: decimal.optional(),
-		temperature: z
-			.object({ operating: decimal, holeCoefficient: decimal, shaftCoefficient: decimal })
-			.optional()
+		temperature: temperatureInput.optional()
 	})
 	.refine((f) => (f.shaft === undefined) !== (f.fastener === undefined), {
 		error: 'give either a shaft or a fastener',

@@ -4,6 +4,7 @@ import { db } from './db';
 import { isUuid } from './api-input';
 import { getDrawing, getRevision, listRevisions } from './db/queries/drawings';
 import { getFeature } from './db/queries/features';
+import { getFit } from './db/queries/fits';
 import { requireMember } from './guards';
 
 function notFound(): never {
@@ -47,4 +48,15 @@ export async function requireFeature(
 	const feature = isUuid(params.id) ? await getFeature(db, place.revision.id, params.id) : null;
 	if (!feature) notFound();
 	return { place, feature };
+}
+
+/** A fit listed on a revision the asker may see with `capability` (owned or using its feature). */
+export async function requireFit(
+	params: { team: string; number: string; letter: string; id: string },
+	capability: Capability
+) {
+	const place = await requireRevision(params.team, params.number, params.letter, capability);
+	const fit = isUuid(params.id) ? await getFit(db, place.revision.id, params.id) : null;
+	if (!fit) notFound();
+	return { place, fit };
 }

@@ -18,6 +18,7 @@ import type { Actor } from './db/queries/activity';
 import {
 	createFeature,
 	deleteFeature,
+	FeatureInUse,
 	listFeatures,
 	RevisionFrozen,
 	StaleFeature,
@@ -36,7 +37,8 @@ export interface FeaturePlace {
 export type Refusal = {
 	ok: false;
 	status: 400 | 404 | 409;
-	code: 'invalid' | 'not_found' | 'stale' | 'frozen';
+	code: 'invalid' | 'not_found' | 'stale' | 'frozen' | 'in_use';
+	fits?: string[];
 	message: string;
 	field?: string;
 	position?: number;
@@ -175,6 +177,9 @@ function checkValues(place: FeaturePlace, values: Parameters<typeof evaluation>[
 async function refusalFor(db: Db, place: FeaturePlace, err: unknown): Promise<Refusal> {
 	if (err instanceof RevisionFrozen) {
 		return { ok: false, status: 409, code: 'frozen', message: `${err.message}.` };
+	}
+	if (err instanceof FeatureInUse) {
+		return { ok: false, status: 409, code: 'in_use', message: `${err.message}.`, fits: err.fitIds };
 	}
 	if (err instanceof StaleFeature) {
 		if (!err.current)

@@ -21,6 +21,7 @@ import {
 import type { Characteristic } from '../../tolerance/feature';
 import type { RulebookTeam } from '../../tolerance/rulebook/types';
 import { featureKinds } from '../../features';
+import { FIT_INTENTS, type TemperatureInput } from '../../tolerance/fit';
 
 // Auth.js tables (shape expected by @auth/drizzle-adapter); sessions are JWTs, so no sessions table.
 export const users = pgTable('users', {
@@ -351,6 +352,59 @@ export const features = pgTable(
 		index('features_drawing_idx').on(table.drawingId)
 	]
 );
+
+/** A bought fastener as a fit's other member (PRODUCT.md §6). */
+export interface StoredFastener {
+	callout: string;
+	label: string;
+	fixedPosition?: string;
+	projection?: { P: string; D: string };
+}
+
+/**
+ * A fit between two features (or a feature and a bought fastener). It belongs to the revision
+ * of its hole; the shaft may be a feature of any drawing's revision in the same team.
+ */
+export const fits = pgTable(
+	'fits',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		teamId: uuid('team_id')
+			.notNull()
+			.references(() => teams.id, { onDelete: 'cascade' }),
+		revisionId: uuid('revision_id')
+			.notNull()
+			.references(() => revisions.id, { onDelete: 'cascade' }),
+		holeFeatureId: uuid('hole_feature_id')
+			.notNull()
+			.references(() => features.id, { onDelete: 'cascade' }),
+		shaftFeatureId: uuid('shaft_feature_id').references(() => features.id, {
+			onDelete: 'cascade'
+		}),
+		shaftRevisionId: uuid('shaft_revision_id').references(() => revisions.id, {
+			onDelete: 'cascade'
+		}),
+		fastener: jsonb('fastener').$type<StoredFastener | null>(),
+		fixedHoleFeatureId: uuid('fixed_hole_feature_id').references(() => features.id, {
+			onDelete: 'cascade'
+		}),
+		intent: text('intent', { enum: FIT_INTENTS }).notNull(),
+		requiredMinClearance: text('required_min_clearance'),
+		requiredMaxClearance: text('required_max_clearance'),
+		sharedDatumFrame: boolean('shared_datum_frame').notNull().default(false),
+		temperature: jsonb('temperature').$type<TemperatureInput | null>(),
+		version: integer('version').notNull().default(1),
+		createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(table) => [
+		index('fits_revision_idx').on(table.revisionId),
+		index('fits_shaft_revision_idx').on(table.shaftRevisionId)
+	]
+);
+
+export type FitRow = typeof fits.$inferSelect;
 
 export type FeatureRow = typeof features.$inferSelect;
 export type UserRow = typeof users.$inferSelect;

@@ -1,8 +1,9 @@
-import { and, asc, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, or, sql } from 'drizzle-orm';
 import type { Db } from '../connect';
 import {
 	drawings,
 	features,
+	fits,
 	isFrozen,
 	revisions,
 	type DrawingRow,
@@ -35,6 +36,15 @@ export class StaleFeature extends Error {
 			current
 				? 'Someone changed this feature since you loaded it'
 				: 'Someone deleted this feature since you loaded it'
+		);
+	}
+}
+
+/** A feature that a fit uses is not deleted: the fit would lose a member (delete the fit first). */
+export class FeatureInUse extends Error {
+	constructor(readonly fitIds: string[]) {
+		super(
+			`This feature is a member of ${fitIds.length === 1 ? 'a fit' : `${fitIds.length} fits`}: delete ${fitIds.length === 1 ? 'that fit' : 'those fits'} first`
 		);
 	}
 }
@@ -77,7 +87,7 @@ export function storedFeature(row: FeatureRow) {
 }
 
 /** Locks the revision for the change and refuses a frozen one (approved, released). */
-async function lockOpenRevision(tx: Db, revision: RevisionRow) {
+export async function lockOpenRevision(tx: Db, revision: RevisionRow) {
 	const [locked] = await tx
 		.select()
 		.from(revisions)
@@ -171,6 +181,17 @@ export async function deleteFeature(
 ) {
 	return db.transaction(async (tx) => {
 		await lockOpenRevision(tx, revision);
+		const using = await tx
+			.select({ id: fits.id })
+			.from(fits)
+			.where(
+				or(
+					eq(fits.holeFeatureId, feature.id),
+					eq(fits.shaftFeatureId, feature.id),
+					eq(fits.fixedHoleFeatureId, feature.id)
+				)
+			);
+		if (using.length > 0) throw new FeatureInUse(using.map((f) => f.id));
 		const [row] = await tx
 			.delete(features)
 			.where(and(eq(features.id, feature.id), eq(features.version, version)))

@@ -1,0 +1,192 @@
+import { and, eq, inArray, or } from 'drizzle-orm';
+import type { Db } from '../connect';
+import {
+	drawings,
+	features,
+	fits,
+	revisions,
+	type DrawingRow,
+	type FeatureRow,
+	type FitRow,
+	type RevisionRow
+} from '../schema';
+import { recordActivity, type Actor } from './activity';
+import { lockOpenRevision } from './features';
+
+export type FitValues = Omit<
+	typeof fits.$inferInsert,
+	'id' | 'teamId' | 'revisionId' | 'version' | 'createdBy' | 'createdAt' | 'updatedAt'
+>;
+
+export class StaleFit extends Error {
+	/** `current` is null when the fit was deleted meanwhile. */
+	constructor(readonly current: FitRow | null) {
+		super(
+			current
+				? 'Someone changed this fit since you loaded it'
+				: 'Someone deleted this fit since you loaded it'
+		);
+	}
+}
+
+/** A feature with the revision and drawing it sits on. */
+export interface PlacedFeature {
+	feature: FeatureRow;
+	revision: RevisionRow;
+	drawing: DrawingRow;
+}
+
+/** Fits owned by the revision (its holes) and fits whose shaft sits on it. */
+export async function listFits(db: Db, revisionId: string) {
+	return db
+		.select()
+		.from(fits)
+		.where(or(eq(fits.revisionId, revisionId), eq(fits.shaftRevisionId, revisionId)))
+		.orderBy(fits.createdAt, fits.id);
+}
+
+/** A fit listed on the revision (owned by it or using one of its features as the shaft). */
+export async function getFit(db: Db, revisionId: string, id: string) {
+	const [row] = await db
+		.select()
+		.from(fits)
+		.where(
+			and(
+				eq(fits.id, id),
+				or(eq(fits.revisionId, revisionId), eq(fits.shaftRevisionId, revisionId))
+			)
+		);
+	return row ?? null;
+}
+
+/** The team's features by id with their revisions and drawings; other teams' ids are left out. */
+export async function placedFeatures(db: Db, teamId: string, ids: string[]) {
+	const unique = [...new Set(ids)];
+	if (unique.length === 0) return new Map<string, PlacedFeature>();
+	const rows = await db
+		.select({ feature: features, revision: revisions, drawing: drawings })
+		.from(features)
+		.innerJoin(revisions, eq(revisions.id, features.revisionId))
+		.innerJoin(drawings, eq(drawings.id, features.drawingId))
+		.where(and(inArray(features.id, unique), eq(drawings.teamId, teamId)));
+	return new Map(rows.map((r) => [r.feature.id, r]));
+}
+
+/** The stored record as the trail keeps it (before and after), without computed values. */
+export function storedFit(row: FitRow) {
+	return {
+		id: row.id,
+		revisionId: row.revisionId,
+		holeFeatureId: row.holeFeatureId,
+		shaftFeatureId: row.shaftFeatureId ?? null,
+		fastener: row.fastener ?? null,
+		fixedHoleFeatureId: row.fixedHoleFeatureId ?? null,
+		intent: row.intent,
+		requiredMinClearance: row.requiredMinClearance ?? null,
+		requiredMaxClearance: row.requiredMaxClearance ?? null,
+		sharedDatumFrame: row.sharedDatumFrame,
+		temperature: row.temperature ?? null,
+		version: row.version
+	};
+}
+
+const where = (revision: RevisionRow, drawing: DrawingRow) =>
+	`revision ${revision.letter} of ${drawing.number}`;
+
+/** Adds a fit to the revision of its hole. */
+export async function createFit(
+	db: Db,
+	actor: Actor,
+	drawing: DrawingRow,
+	revision: RevisionRow,
+	values: FitValues,
+	summary: string
+) {
+	return db.transaction(async (tx) => {
+		await lockOpenRevision(tx, revision);
+		const [row] = await tx
+			.insert(fits)
+			.values({ ...values, teamId: drawing.teamId, revisionId: revision.id, createdBy: actor.id })
+			.returning();
+		await recordActivity(tx, {
+			teamId: drawing.teamId,
+			actor,
+			entity: 'fit',
+			entityId: row.id,
+			drawingId: drawing.id,
+			action: 'create',
+			summary: `added the fit ${summary} on ${where(revision, drawing)}`,
+			after: storedFit(row)
+		});
+		return row;
+	});
+}
+
+/** Applies an edit made against `version`; a stale one throws with the current fit. */
+export async function updateFit(
+	db: Db,
+	actor: Actor,
+	drawing: DrawingRow,
+	revision: RevisionRow,
+	fit: FitRow,
+	version: number,
+	changes: Partial<FitValues>,
+	summary: string
+) {
+	return db.transaction(async (tx) => {
+		await lockOpenRevision(tx, revision);
+		const [row] = await tx
+			.update(fits)
+			.set({ ...changes, version: fit.version + 1, updatedAt: new Date() })
+			.where(and(eq(fits.id, fit.id), eq(fits.version, version)))
+			.returning();
+		if (!row) throw new StaleFit(await currentFit(tx, fit.id));
+		await recordActivity(tx, {
+			teamId: drawing.teamId,
+			actor,
+			entity: 'fit',
+			entityId: row.id,
+			drawingId: drawing.id,
+			action: 'update',
+			summary: `edited the fit ${summary} on ${where(revision, drawing)}`,
+			before: storedFit(fit),
+			after: storedFit(row)
+		});
+		return row;
+	});
+}
+
+export async function deleteFit(
+	db: Db,
+	actor: Actor,
+	drawing: DrawingRow,
+	revision: RevisionRow,
+	fit: FitRow,
+	version: number,
+	summary: string
+) {
+	return db.transaction(async (tx) => {
+		await lockOpenRevision(tx, revision);
+		const [row] = await tx
+			.delete(fits)
+			.where(and(eq(fits.id, fit.id), eq(fits.version, version)))
+			.returning();
+		if (!row) throw new StaleFit(await currentFit(tx, fit.id));
+		await recordActivity(tx, {
+			teamId: drawing.teamId,
+			actor,
+			entity: 'fit',
+			entityId: row.id,
+			drawingId: drawing.id,
+			action: 'delete',
+			summary: `deleted the fit ${summary} from ${where(revision, drawing)}`,
+			before: storedFit(row)
+		});
+		return row;
+	});
+}
+
+async function currentFit(tx: Db, id: string) {
+	const [current] = await tx.select().from(fits).where(eq(fits.id, id));
+	return current ?? null;
+}
