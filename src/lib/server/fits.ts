@@ -7,7 +7,13 @@
  */
 import { fitJson } from '$lib/calc-api';
 import type { FitCreate, FitPatch } from '$lib/schemas/fits';
-import { evaluateFit, type FitMemberInput, type FitResult } from '$lib/tolerance/fit';
+import {
+	evaluateFit,
+	type FitIntent,
+	type FitMemberInput,
+	type FitResult
+} from '$lib/tolerance/fit';
+import type { FitClassification } from '$lib/tolerance/iso286';
 import { sizeFindings } from '$lib/tolerance/rulebook';
 import type { Db } from './db/connect';
 import type { Actor } from './db/queries/activity';
@@ -20,7 +26,6 @@ import {
 	StaleFit,
 	storedFit,
 	updateFit,
-	type FitValues,
 	type PlacedFeature
 } from './db/queries/fits';
 import type { DrawingRow, FitRow, RevisionRow, TeamRow } from './db/schema';
@@ -116,7 +121,11 @@ function memberFindings(p: PlacedFeature) {
 	);
 }
 
-type Members = { hole: PlacedFeature; shaft: PlacedFeature | null; fixedHole: PlacedFeature | null };
+type Members = {
+	hole: PlacedFeature;
+	shaft: PlacedFeature | null;
+	fixedHole: PlacedFeature | null;
+};
 
 /** What the computation reads of a fit, stored or about to be. */
 interface FitTerms {
@@ -300,6 +309,15 @@ async function refusalFor(db: Db, place: FitPlace, err: unknown): Promise<FitRef
 	throw err;
 }
 
+/**
+ * Left out, the intent is read from the other member and the limits: a fastener floats, a
+ * clearance fit runs, a transition or interference fit is what it is.
+ */
+function intentOf(input: FitCreate, classification: FitClassification): FitIntent {
+	if (input.fastener) return input.fixedHoleFeatureId ? 'fixed-fastener' : 'floating-fastener';
+	return classification === 'clearance' ? 'running' : classification;
+}
+
 export type FitOutcome = { ok: true; fit: FitJson } | FitRefusal;
 
 export async function addFit(
@@ -317,8 +335,7 @@ export async function addFit(
 	const check = checked(input, found.members);
 	if (!check.ok) return check.refusal;
 	const { members } = found;
-	const intent = input.intent ?? check.result.intent;
-	if (!intent) return invalid("say what the fit is meant to be", 'intent');
+	const intent = input.intent ?? intentOf(input, check.result.classification);
 	try {
 		const row = await createFit(
 			db,
@@ -372,7 +389,10 @@ export async function editFit(
 	if (changes.fastener) next.shaftFeatureId = null;
 	else if (changes.shaftFeatureId) next.fastener = null;
 	if (!next.shaftFeatureId === !next.fastener)
-		return invalid('Give the other member: either shaftFeatureId or a bought fastener', 'shaftFeatureId');
+		return invalid(
+			'Give the other member: either shaftFeatureId or a bought fastener',
+			'shaftFeatureId'
+		);
 	const found = await resolveMembers(db, place, {
 		hole: fit.holeFeatureId,
 		shaft: next.shaftFeatureId ?? null,
