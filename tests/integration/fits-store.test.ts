@@ -6,7 +6,7 @@ import { createDrawing, insertRevision } from '../../src/lib/server/db/queries/d
 import { createTeam } from '../../src/lib/server/db/queries/teams';
 import { createUser } from '../../src/lib/server/db/queries/users';
 import { addFeature, removeFeature, type FeaturePlace } from '../../src/lib/server/features';
-import { addFit, editFit, fitsOf, removeFit } from '../../src/lib/server/fits';
+import { addFit, editFit, fitsOf, removeFit, type FitPlace } from '../../src/lib/server/fits';
 import { featureInput } from '../../src/lib/schemas/features';
 import { fitCreate, fitPatch } from '../../src/lib/schemas/fits';
 import type { FeatureJson } from '../../src/lib/features';
@@ -23,7 +23,7 @@ let shaftDrawing: DrawingRow;
 const sheet = { width: 1190.55, height: 841.89 };
 let nextLetter = 0;
 
-async function newRevision(drawing: DrawingRow): Promise<FeaturePlace> {
+async function newRevision(drawing: DrawingRow): Promise<FeaturePlace & FitPlace> {
 	const letter = 'ABCDEFGHJKLMNP'[nextLetter++];
 	const revision = await insertRevision(database.db, actor, drawing, {
 		letter,

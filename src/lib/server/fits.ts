@@ -313,9 +313,9 @@ async function refusalFor(db: Db, place: FitPlace, err: unknown): Promise<FitRef
  * Left out, the intent is read from the other member and the limits: a fastener floats, a
  * clearance fit runs, a transition or interference fit is what it is.
  */
-function intentOf(input: FitCreate, classification: FitClassification): FitIntent {
+function intentOf(input: FitCreate, classification: FitClassification | null): FitIntent {
 	if (input.fastener) return input.fixedHoleFeatureId ? 'fixed-fastener' : 'floating-fastener';
-	return classification === 'clearance' ? 'running' : classification;
+	return !classification || classification === 'clearance' ? 'running' : classification;
 }
 
 export type FitOutcome = { ok: true; fit: FitJson } | FitRefusal;
