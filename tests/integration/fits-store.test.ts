@@ -8,7 +8,7 @@ import { createUser } from '../../src/lib/server/db/queries/users';
 import { addFeature, removeFeature, type FeaturePlace } from '../../src/lib/server/features';
 import { addFit, editFit, fitsOf, removeFit, type FitPlace } from '../../src/lib/server/fits';
 import { featureInput } from '../../src/lib/schemas/features';
-import { fitCreate, fitPatch } from '../../src/lib/schemas/fits';
+import { fitCreate, fitPatch, fitResponse } from '../../src/lib/schemas/fits';
 import type { FeatureJson } from '../../src/lib/features';
 import { getFeature } from '../../src/lib/server/db/queries/features';
 import { listFits } from '../../src/lib/server/db/queries/fits';
@@ -101,6 +101,8 @@ describe('fits across drawings', () => {
 		expect(fit.verdict).toBeTruthy();
 		expect(Array.isArray(fit.checks)).toBe(true);
 		expect(fit.owned).toBe(true);
+		// The OpenAPI document's response schema describes the answer.
+		expect(fitResponse.safeParse(fit).error).toBeUndefined();
 		expect(fit.members.shaft).toMatchObject({ drawing: 'KF-1003', balloon: journal.balloon });
 
 		// Listed on both revisions; read-only on the journal's.
@@ -218,6 +220,7 @@ describe('fits across drawings', () => {
 		if (!outcome.ok) return;
 		expect(outcome.fit.fastener).toMatchObject({ callout: 'M6', label: 'ISO 4762 screw' });
 		expect(outcome.fit.members.shaft).toBeNull();
+		expect(fitResponse.safeParse(outcome.fit).error).toBeUndefined();
 		expect(outcome.fit.minClearance).toBeTruthy();
 	});
 });

@@ -59,3 +59,79 @@ export const fitPatch = z
 
 export type FitCreate = z.output<typeof fitCreate>;
 export type FitPatch = z.output<typeof fitPatch>;
+
+const text = z.string().nullable();
+const memberRef = z.object({
+	featureId: z.uuid(),
+	drawing: z.string().describe('The drawing number'),
+	letter: z.string().describe('The revision letter'),
+	balloon: z.number().int(),
+	label: z.string(),
+	callout: z.string()
+});
+const size = z
+	.record(z.string(), z.unknown())
+	.describe('The member as /calc/size answers it, under its own revision settings');
+
+/** What every fit answer holds (the OpenAPI document's response schema). */
+export const fitResponse = z.object({
+	id: z.uuid(),
+	revisionId: z.uuid().describe("The hole's revision, which owns the fit"),
+	holeFeatureId: z.uuid(),
+	shaftFeatureId: z.uuid().nullable(),
+	fastener: storedFastener
+		.extend({ size: size.nullable().optional() })
+		.nullable()
+		.describe('A bought fastener as the other member, with its computed size'),
+	fixedHoleFeatureId: z.uuid().nullable(),
+	intent: z.enum(FIT_INTENTS),
+	requiredMinClearance: text,
+	requiredMaxClearance: text,
+	sharedDatumFrame: z.boolean(),
+	temperature: z
+		.object({
+			operating: z.string(),
+			holeCoefficient: z.string(),
+			shaftCoefficient: z.string(),
+			minClearance: text.optional(),
+			maxClearance: text.optional(),
+			classification: z.string().nullable().optional(),
+			checks: z.array(z.unknown()).optional()
+		})
+		.nullable(),
+	version: z.number().int(),
+	createdAt: z.string(),
+	updatedAt: z.string(),
+	owned: z.boolean().describe("True on the hole's revision; elsewhere the fit is listed read-only"),
+	members: z.object({
+		hole: memberRef,
+		shaft: memberRef.nullable(),
+		fixedHole: memberRef.nullable()
+	}),
+	problem: z
+		.object({
+			message: z.string(),
+			member: z.string(),
+			field: z.string(),
+			position: z.number().int().nullable()
+		})
+		.nullable()
+		.describe('Why the values could not be computed'),
+	units: z.enum(['mm', 'in']).optional(),
+	hole: size.optional(),
+	shaft: size.optional(),
+	minClearance: text.optional().describe('Negative: interference. In the hole’s unit'),
+	maxClearance: text.optional(),
+	classification: z.enum(['clearance', 'transition', 'interference']).nullable().optional(),
+	countedControls: z
+		.array(z.string())
+		.optional()
+		.describe('The controls counted at the boundaries'),
+	minClearanceAtBoundary: text.optional(),
+	maxClearanceAtBoundary: text.optional(),
+	boundaryNote: z.string().optional(),
+	verdict: z.enum(['pass', 'fail', 'undetermined']).optional(),
+	checks: z.array(z.object({ what: z.string(), ok: z.boolean(), text: z.string() })).optional(),
+	fastenerBudget: z.record(z.string(), z.unknown()).optional(),
+	caution: z.string().optional()
+});

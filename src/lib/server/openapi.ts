@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { adviseInput, fitInput, sizeInput, sizeQuery } from '$lib/schemas/calc';
 import { drawingInput, drawingPatch, revisionPatch } from '$lib/schemas/drawings';
 import { deleteQuery, featureInput, featurePatch, featureResponse } from '$lib/schemas/features';
+import { fitCreate, fitPatch, fitResponse } from '$lib/schemas/fits';
 import {
 	activityQuery,
 	apiTokenInput,
@@ -130,7 +131,38 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 			success: 200
 		},
 		delete: {
-			summary: 'Delete a feature (its balloon is not reused)',
+			summary:
+				'Delete a feature (its balloon is not reused); 409 in_use while a fit uses it (delete the fit first)',
+			query: deleteQuery,
+			success: 204
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/fits': {
+		get: {
+			summary:
+				"Fits listed on the revision: those of its holes (owned: true) and those whose shaft is one of its features (owned: false, read-only here), each member computed under its own revision's settings",
+			response: z.array(fitResponse),
+			success: 200
+		},
+		post: {
+			summary:
+				'Add a fit to the revision of its hole: the other member is a feature of any drawing of the team (shaftFeatureId) or a bought fastener {callout, label}; 400 for a bad member or value, 409 frozen',
+			body: fitCreate,
+			response: fitResponse,
+			success: 201
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/fits/{id}': {
+		get: { summary: 'One fit with its computed values', response: fitResponse, success: 200 },
+		patch: {
+			summary:
+				"Edit a fit through its hole's revision; 409 stale with the current fit, 409 frozen, 409 not_owner through the other member's revision",
+			body: fitPatch,
+			response: fitResponse,
+			success: 200
+		},
+		delete: {
+			summary: "Delete a fit through its hole's revision",
 			query: deleteQuery,
 			success: 204
 		}
