@@ -79,6 +79,19 @@ export class Client {
 		});
 	}
 
+	/** A raw API call (CSV, multipart) with the session cookie and Origin. */
+	async send(method: string, path: string, body?: BodyInit, contentType?: string) {
+		return fetch(new URL(`/api/v1${path}`, baseUrl), {
+			method,
+			headers: {
+				cookie: this.cookieHeader(),
+				origin: new URL(baseUrl).origin,
+				...(contentType ? { 'content-type': contentType } : {})
+			},
+			body
+		});
+	}
+
 	async signIn(email: string, password = demoPassword) {
 		return this.submit('/signin?/password', { email, password });
 	}

@@ -1,43 +1,12 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { twoSheetPdf } from '../fixtures/pdfs';
 import { unique } from '../shared';
-import { baseUrl, Client, newVerifiedUser } from './client';
+import { Client, newVerifiedUser } from './client';
+import { draftRevision } from './revisions';
 
 type Actor = 'signedOut' | 'admin' | 'drafter' | 'checker' | 'quality' | 'outsider';
 const actors: Actor[] = ['signedOut', 'admin', 'drafter', 'checker', 'quality', 'outsider'];
 const clients = {} as Record<Actor, Client>;
 let outsiderTeam = '';
-
-/** A new drawing with revision A (draft) in `team`, uploaded by `client`; its API path. */
-async function draftRevision(client: Client, team: string) {
-	const number = `F-${unique()}`.toUpperCase();
-	const created = await client.api('POST', `/teams/${team}/drawings`, {
-		number,
-		title: 'Bushing for feature tests',
-		units: 'mm',
-		standard: 'iso-8015',
-		generalTolerance: { kind: 'iso2768', linear: 'm' }
-	});
-	expect(created.status).toBe(201);
-	const form = new FormData();
-	form.set(
-		'file',
-		new Blob([(await twoSheetPdf(number)) as BlobPart], { type: 'application/pdf' })
-	);
-	const uploaded = await fetch(
-		new URL(`/api/v1/teams/${team}/drawings/${number}/revisions`, baseUrl),
-		{
-			method: 'POST',
-			headers: {
-				cookie: [...client.cookies].map(([k, v]) => `${k}=${v}`).join('; '),
-				origin: new URL(baseUrl).origin
-			},
-			body: form
-		}
-	);
-	expect(uploaded.status).toBe(201);
-	return { number, path: `/teams/${team}/drawings/${number}/revisions/A` };
-}
 
 const bore = {
 	kind: 'hole',

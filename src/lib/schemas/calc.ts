@@ -23,7 +23,9 @@ const unit = z.enum(UNITS, { error: 'units must be mm or in' });
 export const units = unit.default('mm');
 
 /** Decimals travel as strings; a JSON number is accepted and read as written. */
-export const decimal = z.union([z.string().trim().min(1).max(40), z.number().finite()]).transform(String);
+export const decimal = z
+	.union([z.string().trim().min(1).max(40), z.number().finite()])
+	.transform(String);
 
 export const callout = z
 	.string({ error: 'callout is required' })

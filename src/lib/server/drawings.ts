@@ -60,3 +60,19 @@ export async function requireFit(
 	if (!fit) notFound();
 	return { place, fit };
 }
+
+/**
+ * A revision to export: released ones for everyone with `exportReleased` (supplier quality sees
+ * no others), every state for `exportUnreleased`.
+ */
+export async function requireExport(params: { team: string; number: string; letter: string }) {
+	const place = await requireRevision(params.team, params.number, params.letter, 'exportReleased');
+	const released = ['released', 'superseded'].includes(place.revision.state);
+	if (!released && !can(place.membership.role, 'exportUnreleased')) {
+		error(403, {
+			message: 'Your role exports released revisions only',
+			code: 'forbidden'
+		});
+	}
+	return place;
+}

@@ -17,6 +17,7 @@ import type { Db } from './db/connect';
 import type { Actor } from './db/queries/activity';
 import {
 	createFeature,
+	createFeatures,
 	deleteFeature,
 	FeatureInUse,
 	listFeatures,
@@ -297,4 +298,72 @@ function checkLocation(place: FeaturePlace, location: FeatureRow['location']): R
 		message: `location: revision ${place.revision.letter} has ${place.revision.pages} sheet${place.revision.pages === 1 ? '' : 's'}`,
 		field: 'location'
 	};
+}
+
+/** A bad row of an imported file: its line (the header is line 1) and why. */
+export interface RowProblem {
+	line: number;
+	reason: string;
+}
+
+export type ImportOutcome =
+	| { ok: true; features: FeatureJson[] }
+	| Refusal
+	| {
+			ok: false;
+			status: 422;
+			code: 'invalid_rows';
+			message: string;
+			rows: RowProblem[];
+	  };
+
+/**
+ * Adds the rows of an imported file, all or none: each row is checked as `addFeature` checks
+ * one, its callout read under the revision's settings; the features are not yet placed.
+ */
+export async function importFeatures(
+	db: Db,
+	actor: Actor,
+	place: FeaturePlace,
+	rows: { line: number; input: FeatureInput }[],
+	problems: RowProblem[]
+): Promise<ImportOutcome> {
+	const list = [];
+	const bad = [...problems];
+	for (const { line, input } of rows) {
+		const internal = resolveInternal(place, input);
+		const checked = checkValues(place, { ...input, internal });
+		if (!checked.ok) {
+			bad.push({ line, reason: checked.refusal.message });
+			continue;
+		}
+		const spec = checked.result?.ok ? checked.result.spec : null;
+		list.push({
+			...input,
+			location: null,
+			internal,
+			quantity: input.quantity ?? spec?.quantity ?? 1
+		});
+	}
+	if (bad.length > 0) {
+		bad.sort((a, b) => a.line - b.line);
+		return {
+			ok: false,
+			status: 422,
+			code: 'invalid_rows',
+			message: `Nothing was imported: ${bad.length} row${bad.length === 1 ? '' : 's'} could not be read (first: line ${bad[0].line}, ${bad[0].reason})`,
+			rows: bad
+		};
+	}
+	try {
+		const created = await createFeatures(db, actor, place.drawing, place.revision, list);
+		const all = await listFeatures(db, place.revision.id);
+		const findingsOf = rulebookFindings(place, all);
+		return {
+			ok: true,
+			features: created.map((row) => featureJson(place, row, findingsOf(row.id)))
+		};
+	} catch (err) {
+		return refusalFor(db, place, err);
+	}
 }

@@ -3,6 +3,7 @@ import { adviseInput, fitInput, sizeInput, sizeQuery } from '$lib/schemas/calc';
 import { drawingInput, drawingPatch, revisionPatch } from '$lib/schemas/drawings';
 import { deleteQuery, featureInput, featurePatch, featureResponse } from '$lib/schemas/features';
 import { fitCreate, fitPatch, fitResponse } from '$lib/schemas/fits';
+import { importDescription } from '$lib/schemas/feature-import';
 import {
 	activityQuery,
 	apiTokenInput,
@@ -16,6 +17,10 @@ interface Operation {
 	summary: string;
 	body?: z.ZodType;
 	multipart?: boolean;
+	/** A CSV file: a text/csv body, or multipart with the field `file`. */
+	csv?: boolean;
+	/** A longer description (Markdown) beside the summary. */
+	description?: string;
 	query?: z.ZodObject;
 	public?: boolean;
 	success: number;
@@ -167,6 +172,32 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 			success: 204
 		}
 	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/features/import': {
+		post: {
+			summary:
+				'Import features from CSV (all or nothing); 422 invalid_rows names each bad row by its line',
+			description: importDescription,
+			csv: true,
+			response: z.array(featureResponse),
+			success: 201
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/export/features.csv': {
+		get: {
+			summary:
+				"The revision's features as CSV (UTF-8 with a byte order mark; the API's values; cells that could run as a formula are neutralised with a leading apostrophe)",
+			success: 200,
+			produces: 'text/csv'
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/export/fits.csv': {
+		get: {
+			summary:
+				'The fits listed on the revision as CSV (as features.csv: byte order mark, neutralised cells)',
+			success: 200,
+			produces: 'text/csv'
+		}
+	},
 	'/calc/size': {
 		get: {
 			summary: 'Limits, MMC/LMC, envelope and gauges of one callout',
@@ -245,12 +276,28 @@ export function openApiDocument(origin: string) {
 				: [];
 			item[method] = {
 				summary: op.summary,
+				...(op.description && { description: op.description }),
 				security: op.public ? [] : [{ session: [] }, { bearer: [] }],
 				parameters: [...parameters, ...query],
 				...(op.body && {
 					requestBody: {
 						required: true,
 						content: { 'application/json': { schema: jsonSchema(op.body) } }
+					}
+				}),
+				...(op.csv && {
+					requestBody: {
+						required: true,
+						content: {
+							'text/csv': { schema: { type: 'string' } },
+							'multipart/form-data': {
+								schema: {
+									type: 'object',
+									required: ['file'],
+									properties: { file: { type: 'string', format: 'binary' } }
+								}
+							}
+						}
 					}
 				}),
 				...(op.multipart && {

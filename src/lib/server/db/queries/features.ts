@@ -107,34 +107,51 @@ export async function createFeature(
 	revision: RevisionRow,
 	values: FeatureValues
 ) {
+	const [row] = await createFeatures(db, actor, drawing, revision, [values]);
+	return row;
+}
+
+/** Adds features in one transaction (all or none), balloons in the given order. */
+export async function createFeatures(
+	db: Db,
+	actor: Actor,
+	drawing: DrawingRow,
+	revision: RevisionRow,
+	list: FeatureValues[]
+) {
 	return db.transaction(async (tx) => {
 		await lockOpenRevision(tx, revision);
 		const [counter] = await tx
 			.update(drawings)
-			.set({ nextBalloon: sql`${drawings.nextBalloon} + 1` })
+			.set({ nextBalloon: sql`${drawings.nextBalloon} + ${list.length}` })
 			.where(eq(drawings.id, drawing.id))
 			.returning({ next: drawings.nextBalloon });
-		const [row] = await tx
-			.insert(features)
-			.values({
-				...values,
-				revisionId: revision.id,
+		const first = counter.next - list.length;
+		const rows: FeatureRow[] = [];
+		for (const [i, values] of list.entries()) {
+			const [row] = await tx
+				.insert(features)
+				.values({
+					...values,
+					revisionId: revision.id,
+					drawingId: drawing.id,
+					balloon: first + i,
+					createdBy: actor.id
+				})
+				.returning();
+			await recordActivity(tx, {
+				teamId: drawing.teamId,
+				actor,
+				entity: 'feature',
+				entityId: row.id,
 				drawingId: drawing.id,
-				balloon: counter.next - 1,
-				createdBy: actor.id
-			})
-			.returning();
-		await recordActivity(tx, {
-			teamId: drawing.teamId,
-			actor,
-			entity: 'feature',
-			entityId: row.id,
-			drawingId: drawing.id,
-			action: 'create',
-			summary: `added ${name(row)} ${row.callout} on revision ${revision.letter} of ${drawing.number}`,
-			after: storedFeature(row)
-		});
-		return row;
+				action: 'create',
+				summary: `added ${name(row)} ${row.callout} on revision ${revision.letter} of ${drawing.number}`,
+				after: storedFeature(row)
+			});
+			rows.push(row);
+		}
+		return rows;
 	});
 }
 

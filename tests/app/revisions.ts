@@ -1,0 +1,30 @@
+import { expect } from 'vitest';
+import { twoSheetPdf } from '../fixtures/pdfs';
+import { unique } from '../shared';
+import type { Client } from './client';
+
+/** A new drawing with revision A (draft) in `team`, uploaded by `client`; its API path. */
+export async function draftRevision(
+	client: Client,
+	team: string,
+	drawing: Record<string, unknown> = {}
+) {
+	const number = `F-${unique()}`.toUpperCase();
+	const created = await client.api('POST', `/teams/${team}/drawings`, {
+		number,
+		title: 'Bushing for feature tests',
+		units: 'mm',
+		standard: 'iso-8015',
+		generalTolerance: { kind: 'iso2768', linear: 'm' },
+		...drawing
+	});
+	expect(created.status).toBe(201);
+	const form = new FormData();
+	form.set(
+		'file',
+		new Blob([(await twoSheetPdf(number)) as BlobPart], { type: 'application/pdf' })
+	);
+	const uploaded = await client.send('POST', `/teams/${team}/drawings/${number}/revisions`, form);
+	expect(uploaded.status).toBe(201);
+	return { number, path: `/teams/${team}/drawings/${number}/revisions/A` };
+}
