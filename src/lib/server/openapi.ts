@@ -240,10 +240,10 @@ export const errorCodes: Record<number, string[]> = {
 	403: ['forbidden'],
 	404: ['not_found'],
 	405: ['method_not_allowed'],
-	409: ['conflict', 'stale', 'frozen'],
+	409: ['conflict', 'stale', 'frozen', 'in_use', 'not_owner'],
 	413: ['too_large'],
 	415: ['not_pdf', 'unsupported_media_type'],
-	422: ['unreadable_pdf', 'encrypted_pdf', 'too_many_pages', 'duplicate_revision'],
+	422: ['unreadable_pdf', 'encrypted_pdf', 'too_many_pages', 'duplicate_revision', 'invalid_rows'],
 	429: ['rate_limited'],
 	500: ['internal']
 };
