@@ -5,6 +5,7 @@ import { getTeamBySlug } from '../../src/lib/server/db/queries/teams';
 import { demoDrawings } from '../../src/lib/server/demo/drawings';
 import { seedDemo } from '../../src/lib/server/demo/seed';
 import { featuresOf } from '../../src/lib/server/features';
+import { fitsOf } from '../../src/lib/server/fits';
 import { createStorage } from '../../src/lib/server/storage';
 import { freshDatabase, startFakes, tempDir } from './harness';
 
@@ -12,11 +13,15 @@ let database: Database;
 let fakes: Awaited<ReturnType<typeof startFakes>>;
 let temp: ReturnType<typeof tempDir>;
 
-async function boardOf(number: string) {
+async function placeOf(number: string) {
 	const team = (await getTeamBySlug(database.db, 'kestrel'))!;
 	const drawing = (await getDrawing(database.db, team.id, number))!;
 	const revision = (await getRevision(database.db, drawing.id, 'A'))!;
-	return featuresOf(database.db, { team, drawing, revision });
+	return { team, drawing, revision };
+}
+
+async function boardOf(number: string) {
+	return featuresOf(database.db, await placeOf(number));
 }
 
 beforeAll(async () => {
@@ -70,5 +75,29 @@ describe('the demo board', () => {
 				number
 			).toBe(true);
 		}
+	});
+
+	it("has the demo's fits: the journal in the bushing gives 0.006 / 0.035, listed on both drawings", async () => {
+		const bushing = await fitsOf(database.db, await placeOf('KF-1003'));
+		const journal = bushing.find((f) => f.members.shaft?.drawing === 'KF-1002')!;
+		// ISO 286-2:2010: H7 over 10 to 18 mm is 0/+0.018, g6 is -0.006/-0.017.
+		expect(journal).toMatchObject({
+			owned: true,
+			intent: 'running',
+			minClearance: '0.006',
+			maxClearance: '0.035',
+			problem: null
+		});
+		const shaft = await fitsOf(database.db, await placeOf('KF-1002'));
+		expect(shaft.map((f) => [f.id, f.owned])).toEqual([[journal.id, false]]);
+		const housing = await fitsOf(database.db, await placeOf('KF-1001'));
+		expect(housing.map((f) => f.intent).sort()).toEqual([
+			'floating-fastener',
+			'interference',
+			'transition'
+		]);
+		expect(housing.every((f) => f.problem === null)).toBe(true);
+		const bracket = await fitsOf(database.db, await placeOf('KF-2001'));
+		expect(bracket).toHaveLength(1);
 	});
 });

@@ -8,13 +8,15 @@ import {
 	getRevision,
 	latestRevision
 } from '../db/queries/drawings';
-import { addFeature } from '../features';
+import { addFeature, type FeaturePlace } from '../features';
+import { addFit } from '../fits';
+import { fitCreate } from '$lib/schemas/fits';
 import { addMember, getTeamBySlug } from '../db/queries/teams';
 import type { Storage } from '../storage';
 import { storeRevisionBytes } from '../uploads';
 import { demoDrawingPdf, demoDrawings } from './drawings';
 import { demoPeople } from './people';
-import { demoReviews } from './review';
+import { demoReviews, pumpAssembly } from './review';
 import { createUser, getUserByEmail } from '../db/queries/users';
 import { drawings, teams, type Role, type TeamRow, type UserRow } from '../db/schema';
 import { hashPassword } from '../passwords';
@@ -51,7 +53,8 @@ export async function seedDemo(db: Db, password: string, storage: Storage, tempD
 	const drafter = people.find((p) => p.role === 'drafter')?.user;
 	if (team && drafter) {
 		await seedDrawings(db, storage, tempDir, team.id, drafter);
-		await seedFeatures(db, team, drafter);
+		const seeded = await seedFeatures(db, team, drafter);
+		await seedFits(db, team, drafter, seeded);
 	}
 }
 
@@ -109,6 +112,8 @@ async function seedDrawings(
  * symbol. Only on a drawing where no balloon was ever given, so nothing is added twice.
  */
 async function seedFeatures(db: Db, team: TeamRow, drafter: UserRow) {
+	/** The rulebook fixture's feature ids → the features stored now, with their places. */
+	const seeded = new Map<string, { id: string; place: FeaturePlace }>();
 	for (const demo of demoDrawings) {
 		const review = demoReviews.find((r) => r.number === demo.number);
 		if (!review) continue;
@@ -155,10 +160,48 @@ async function seedFeatures(db: Db, team: TeamRow, drafter: UserRow) {
 					};
 				})
 			];
-			for (const input of inputs) {
+			for (const [i, input] of inputs.entries()) {
 				const added = await addFeature(tx, drafter, place, featureInput.parse(input));
 				if (!added.ok) throw new Error(`Demo feature on ${demo.number}: ${added.message}`);
+				const fixtureId = review.features[i]?.id;
+				if (fixtureId) seeded.set(fixtureId, { id: added.feature.id, place });
 			}
 		});
+	}
+	return seeded;
+}
+
+/**
+ * The demo's fits (PRODUCT.md §8) as the rulebook fixture describes them: the pump's fits across
+ * the three metric drawings and the bracket's pivot. Only between features seeded in this run,
+ * so a restart adds nothing twice.
+ */
+async function seedFits(
+	db: Db,
+	team: TeamRow,
+	drafter: UserRow,
+	seeded: Map<string, { id: string; place: FeaturePlace }>
+) {
+	const fits = [...pumpAssembly.fits, ...demoReviews.flatMap((r) => r.fits)];
+	for (const fit of fits) {
+		const hole = seeded.get(fit.holeFeatureId);
+		const shaft = fit.shaftFeatureId ? seeded.get(fit.shaftFeatureId) : undefined;
+		if (!hole || (fit.shaftFeatureId && !shaft)) continue;
+		const added = await addFit(
+			db,
+			drafter,
+			{ ...hole.place, team },
+			fitCreate.parse({
+				holeFeatureId: hole.id,
+				shaftFeatureId: shaft?.id ?? null,
+				fastener: fit.fastener ? { ...fit.fastener, label: fit.fastener.label ?? '' } : null,
+				intent: fit.intent,
+				sharedDatumFrame: fit.sharedDatumFrame ?? false,
+				requiredMinClearance: fit.requiredMinClearance ?? null,
+				requiredMaxClearance: fit.requiredMaxClearance ?? null,
+				temperature: fit.temperature ?? null
+			})
+		);
+		if (!added.ok) throw new Error(`Demo fit ${fit.id}: ${added.message}`);
 	}
 }
