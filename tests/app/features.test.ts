@@ -1,11 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { unique } from '../shared';
-import { Client, newVerifiedUser } from './client';
-import { draftRevision } from './revisions';
+import { actors, draftRevision, roleClients, type Actor } from './revisions';
 
-type Actor = 'signedOut' | 'admin' | 'drafter' | 'checker' | 'quality' | 'outsider';
-const actors: Actor[] = ['signedOut', 'admin', 'drafter', 'checker', 'quality', 'outsider'];
-const clients = {} as Record<Actor, Client>;
+let clients: Awaited<ReturnType<typeof roleClients>>['clients'];
 let outsiderTeam = '';
 
 const bore = {
@@ -16,17 +12,7 @@ const bore = {
 };
 
 beforeAll(async () => {
-	for (const actor of actors) clients[actor] = new Client();
-	for (const role of ['admin', 'drafter', 'checker', 'quality'] as const) {
-		await clients[role].signIn(`${role}@example.test`);
-	}
-	await newVerifiedUser(clients.outsider, 'Olu Elsewhere');
-	outsiderTeam = `elsewhere-${unique()}`;
-	const team = await clients.outsider.api('POST', '/teams', {
-		name: 'Elsewhere Pumps',
-		slug: outsiderTeam
-	});
-	expect(team.status).toBe(201);
+	({ clients, outsiderTeam } = await roleClients());
 });
 
 describe('who may create, edit and delete features on a draft revision', () => {

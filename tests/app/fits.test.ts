@@ -1,12 +1,8 @@
 import Papa from 'papaparse';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { unique } from '../shared';
-import { Client, newVerifiedUser } from './client';
-import { draftRevision } from './revisions';
+import { actors, draftRevision, roleClients, type Actor } from './revisions';
 
-type Actor = 'signedOut' | 'admin' | 'drafter' | 'checker' | 'quality' | 'outsider';
-const actors: Actor[] = ['signedOut', 'admin', 'drafter', 'checker', 'quality', 'outsider'];
-const clients = {} as Record<Actor, Client>;
+let clients: Awaited<ReturnType<typeof roleClients>>['clients'];
 let outsiderTeam = '';
 
 const bore = { kind: 'bore', label: 'Bushing bore', callout: 'Ø12 H7' };
@@ -36,17 +32,7 @@ async function table(response: Response) {
 }
 
 beforeAll(async () => {
-	for (const actor of actors) clients[actor] = new Client();
-	for (const role of ['admin', 'drafter', 'checker', 'quality'] as const) {
-		await clients[role].signIn(`${role}@example.test`);
-	}
-	await newVerifiedUser(clients.outsider, 'Olu Elsewhere');
-	outsiderTeam = `elsewhere-${unique()}`;
-	const team = await clients.outsider.api('POST', '/teams', {
-		name: 'Elsewhere Pumps',
-		slug: outsiderTeam
-	});
-	expect(team.status).toBe(201);
+	({ clients, outsiderTeam } = await roleClients());
 });
 
 describe('who may create, read, edit and delete fits on a draft revision', () => {

@@ -1,7 +1,7 @@
 import { expect } from 'vitest';
 import { twoSheetPdf } from '../fixtures/pdfs';
 import { unique } from '../shared';
-import type { Client } from './client';
+import { Client, newVerifiedUser } from './client';
 
 /** A new drawing with revision A (draft) in `team`, uploaded by `client`; its API path. */
 export async function draftRevision(
@@ -27,4 +27,24 @@ export async function draftRevision(
 	const uploaded = await client.send('POST', `/teams/${team}/drawings/${number}/revisions`, form);
 	expect(uploaded.status).toBe(201);
 	return { number, path: `/teams/${team}/drawings/${number}/revisions/A` };
+}
+
+export type Actor = 'signedOut' | 'admin' | 'drafter' | 'checker' | 'quality' | 'outsider';
+export const actors: Actor[] = ['signedOut', 'admin', 'drafter', 'checker', 'quality', 'outsider'];
+
+/** A client per role of the demo team, one signed out, and an outsider with a team of their own. */
+export async function roleClients() {
+	const clients = {} as Record<Actor, Client>;
+	for (const actor of actors) clients[actor] = new Client();
+	for (const role of ['admin', 'drafter', 'checker', 'quality'] as const) {
+		await clients[role].signIn(`${role}@example.test`);
+	}
+	await newVerifiedUser(clients.outsider, 'Olu Elsewhere');
+	const outsiderTeam = `elsewhere-${unique()}`;
+	const team = await clients.outsider.api('POST', '/teams', {
+		name: 'Elsewhere Pumps',
+		slug: outsiderTeam
+	});
+	expect(team.status).toBe(201);
+	return { clients, outsiderTeam };
 }
