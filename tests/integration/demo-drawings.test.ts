@@ -81,7 +81,9 @@ const normalise = (text: string) => text.replace(/\s+/g, ' ').trim();
 const symbols: Partial<Record<GeometricControl['characteristic'], string>> = {
 	straightness: '⏤',
 	flatness: '⏥',
-	position: '⌖'
+	perpendicularity: '⊥',
+	position: '⌖',
+	'circular-runout': '↗'
 };
 const modifiers = { mmc: ' Ⓜ', lmc: ' Ⓛ', rfs: '' };
 
@@ -125,7 +127,14 @@ describe('demo drawings', () => {
 		const texts = (number: DemoDrawingNumber) =>
 			demoDrawings.find((d) => d.number === number)!.callouts.map((c) => c.text);
 		expect(texts('KF-1001')).toEqual(
-			expect.arrayContaining(['Ø18 H7', '2X Ø6 H7 Ⓔ', '4X Ø6.6', '⌖ Ø0.2 Ⓜ A B', '8'])
+			expect.arrayContaining([
+				'Ø18 H7',
+				'2X Ø6 H7 Ⓔ',
+				'⌖ Ø0.05 A B',
+				'4X Ø6.6',
+				'⌖ Ø0.2 Ⓜ A B',
+				'(8)'
+			])
 		);
 		expect(texts('KF-1002')).toEqual(
 			expect.arrayContaining(['Ø12 g6', '⏤ Ø0.02 Ⓜ', 'Ø10 h6 Ⓔ', '3 N9', '90'])

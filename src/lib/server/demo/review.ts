@@ -47,7 +47,18 @@ export const housing: DemoReview = {
 			kind: 'hole',
 			internal: true,
 			callout: '2X Ø6 H7 Ⓔ',
-			quantity: 2
+			quantity: 2,
+			// The dowels locate the cover: the holes are positioned to the face and the bore.
+			controls: [
+				{
+					characteristic: 'position',
+					value: '0.05',
+					diameterZone: true,
+					appliesTo: 'median',
+					modifier: 'rfs',
+					datums: ['A', 'B']
+				}
+			]
 		},
 		{
 			id: 'kf1001-bolt',
@@ -68,14 +79,16 @@ export const housing: DemoReview = {
 				}
 			]
 		},
-		// No limits of its own: ISO 2768-m gives 8 ±0.2.
+		// Deliberate: the slot's width is given only as a reference dimension (8). A reference
+		// dimension carries no tolerance and the general tolerance does not apply to it, so the
+		// slot has no limits at all.
 		{
 			id: 'kf1001-slot',
 			balloon: 4,
 			label: 'Slot width',
 			kind: 'slot',
 			internal: true,
-			callout: '8'
+			callout: '(8)'
 		}
 	],
 	fits: []
@@ -99,6 +112,8 @@ export const shaft: DemoReview = {
 			kind: 'shaft',
 			internal: false,
 			callout: 'Ø12 g6',
+			// The journal runs in the bushing: its axis is the shaft's datum A.
+			datumFeature: 'A',
 			// Deliberate: Ø0.02 at MMC is larger than the g6 tolerance (0.011), and the VC 12.014
 			// does not go into the bushing's Ø12 H7.
 			controls: [
@@ -118,7 +133,18 @@ export const shaft: DemoReview = {
 			label: 'Coupling end',
 			kind: 'shaft',
 			internal: false,
-			callout: 'Ø10 h6 Ⓔ'
+			callout: 'Ø10 h6 Ⓔ',
+			// The coupling end runs true to the journal.
+			controls: [
+				{
+					characteristic: 'circular-runout',
+					value: '0.02',
+					diameterZone: false,
+					appliesTo: 'surface',
+					modifier: 'rfs',
+					datums: ['A']
+				}
+			]
 		},
 		{
 			id: 'kf1002-keyway',
@@ -142,22 +168,35 @@ export const bushing: DemoReview = {
 		notes: 'ISO 8015\nISO 2768-mK\nCHAMFER 0.5 × 45° ALL EDGES'
 	},
 	features: [
-		// Deliberate: the journal runs in this bore and it has no Ⓔ.
+		// Deliberate: the journal runs in this bore and it has no Ⓔ. The bore is the bushing's
+		// datum A.
 		{
 			id: 'kf1003-bore',
 			balloon: 1,
 			label: 'Bore',
 			kind: 'bore',
 			internal: true,
-			callout: 'Ø12 H7'
+			callout: 'Ø12 H7',
+			datumFeature: 'A'
 		},
+		// Pressed into the housing; it runs true to the bore.
 		{
 			id: 'kf1003-outside',
 			balloon: 2,
 			label: 'Outside diameter',
 			kind: 'shaft',
 			internal: false,
-			callout: 'Ø18 p6 Ⓔ'
+			callout: 'Ø18 p6 Ⓔ',
+			controls: [
+				{
+					characteristic: 'circular-runout',
+					value: '0.02',
+					diameterZone: false,
+					appliesTo: 'surface',
+					modifier: 'rfs',
+					datums: ['A']
+				}
+			]
 		},
 		{
 			id: 'kf1003-length',
@@ -183,7 +222,9 @@ export const bracket: DemoReview = {
 			angle: '0.5'
 		},
 		notes:
-			'DIMENSIONING AND TOLERANCING PER ASME Y14.5-2018\nPIVOT FIT: RUNNING\nPIVOT PIN IS A BOUGHT-OUT PART, SHOWN FOR THE FIT\nBREAK SHARP EDGES'
+			'DIMENSIONING AND TOLERANCING PER ASME Y14.5-2018\nPIVOT FIT: RUNNING\nPIVOT PIN IS A BOUGHT-OUT PART, SHOWN FOR THE FIT\nBREAK SHARP EDGES',
+		// Datum A is the tab's outer face, to which the pivot hole is square.
+		datums: ['A']
 	},
 	features: [
 		// Deliberate: 3 places and 4 places in one limit pair.
@@ -193,7 +234,17 @@ export const bracket: DemoReview = {
 			label: 'Pivot hole',
 			kind: 'hole',
 			internal: true,
-			callout: 'Ø.250-.2515'
+			callout: 'Ø.250-.2515',
+			controls: [
+				{
+					characteristic: 'perpendicularity',
+					value: '.002',
+					diameterZone: true,
+					appliesTo: 'median',
+					modifier: 'rfs',
+					datums: ['A']
+				}
+			]
 		},
 		// Deliberate: 4 places and 3 places; and MMC .2500 equals the hole's MMC. Bought out
 		// (the notes say so), so it is not asked for a location control of its own.
@@ -268,11 +319,21 @@ export const pumpAssembly: DemoReview = {
 			shaftFeatureId: 'kf1002-journal',
 			intent: 'running'
 		},
+		// Deliberate: Ø18 H7/p6 holds at 20 °C (max clearance 0), but the pump runs at 80 °C and
+		// the aluminium housing grows faster than the bronze bushing, so the press fit is lost.
 		{
 			id: 'fit-bushing',
 			holeFeatureId: 'kf1001-bore',
 			shaftFeatureId: 'kf1003-outside',
-			intent: 'interference'
+			intent: 'interference',
+			temperature: {
+				operating: '80',
+				// EN AW-6082 (KF-1001's material): 23.4 × 10⁻⁶/K, 20–100 °C, common handbook value
+				// (recalled).
+				holeCoefficient: '23.4',
+				// CuSn8 (KF-1003's material): 18.5 × 10⁻⁶/K, common handbook value (recalled).
+				shaftCoefficient: '18.5'
+			}
 		},
 		// The dowels sit in their H7 holes as a locational transition fit (H7/m6); the holes
 		// that hold them are not clearance holes, so no fastener budget applies.

@@ -71,6 +71,7 @@ function drawHousing(s: Sheet) {
 	s.holeLeader(bore, 9 * k, 8, [254, 106], 'Ø18 H7', 'Bushing bore', 8);
 	s.datum('B', [269, 109], [269, 99], 'Datum B: bushing bore');
 	s.holeLeader(dowels[0], 3 * k, 125, [70, 46], '2X Ø6 H7 Ⓔ', 'Dowel holes');
+	s.frame([70, 55.5], ['⌖', 'Ø0.05', 'A', 'B'], 'Dowel holes: position');
 	s.holeLeader(bolts[1], 3.3 * k, 60, [216, 38], '4X Ø6.6', 'Cover bolt holes');
 	s.frame([238, 46.5], ['⌖', 'Ø0.2 Ⓜ', 'A', 'B'], 'Cover bolt holes: position');
 
@@ -90,7 +91,17 @@ function drawHousing(s: Sheet) {
 		shift: 12
 	});
 	s.dimension(v(-8, -20), v(8, -20), 'h', 180, '16', { label: 'Slot length', shift: -14 });
-	s.dimension(dowels[0], dowels[1], 'h', 58, '40', { label: 'Dowel spacing', shift: 22 });
+	// The dowel holes' positions are basic, about the bore's axis (datum B).
+	s.dimension(dowels[0], dowels[1], 'h', 58, '40', {
+		label: 'Dowel spacing',
+		basic: true,
+		shift: 22
+	});
+	s.dimension(dowels[0], dowels[1], 'v', 192, '40', {
+		label: 'Dowel spacing',
+		basic: true,
+		shift: 8
+	});
 
 	// Section A–A: 30 deep, the front face (datum A) on the right.
 	const sx = 290;
@@ -110,8 +121,9 @@ function drawHousing(s: Sheet) {
 	s.text('A–A', [sx + 30, t - 12], { h: 5 });
 	s.dimension(sv(30, -30), sv(0, -30), 'h', 200, '30', { label: 'Depth' });
 	s.dimension(sv(0, -24), sv(6, -24), 'h', 196, '6', { label: 'Slot depth' });
-	// The slot's width where the cut shows it: no limits of its own, ISO 2768-m applies.
-	s.dimension(sv(0, -16), sv(0, -24), 'v', sx + 30 * k + 14, '8', {
+	// The slot's width where the cut shows it, given only as a reference dimension: no limits
+	// (the general tolerance does not apply to a reference dimension).
+	s.dimension(sv(0, -16), sv(0, -24), 'v', sx + 30 * k + 14, '(8)', {
 		label: 'Slot width',
 		kind: 'size'
 	});

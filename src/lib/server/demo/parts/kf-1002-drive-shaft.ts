@@ -85,10 +85,17 @@ function drawShaft(s: Sheet) {
 	});
 
 	// Diameters by leader, with the frame under the journal's size.
-	s.leader(v(14, -5), [100, 178], 'Ø10 h6 Ⓔ', 'Coupling end');
+	s.leader(v(14, -5), [100, 172], 'Ø10 h6 Ⓔ', 'Coupling end');
+	s.frame([100, 181.5], ['↗', '0.02', 'A'], 'Coupling end: circular run-out');
 	s.leader(v(30.5, 8), [130, 88], 'Ø16', 'Collar', 'dimension');
 	s.leader(v(56, 6), [176, 86], 'Ø12 g6', 'Journal');
-	s.frame([176, 95.5], ['⏤', 'Ø0.02 Ⓜ'], 'Journal: straightness of the median line');
+	const [, straightnessRight] = s.frame(
+		[176, 95.5],
+		['⏤', 'Ø0.02 Ⓜ'],
+		'Journal: straightness of the median line'
+	);
+	// Datum A, the journal's axis: the datum triangle on the journal's tolerance frame.
+	s.datum('A', [straightnessRight, 95.5], [straightnessRight + 10, 95.5], 'Datum A: journal axis');
 	s.leader(v(85, -4), [262, 152], 'Ø8', 'Pump end', 'dimension');
 
 	// Lengths: chain below, overall further out; keyway above.

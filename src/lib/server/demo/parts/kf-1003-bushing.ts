@@ -68,10 +68,14 @@ function drawBushing(s: Sheet) {
 		kind: 'size',
 		shift: -10
 	});
+	s.frame([44, 140], ['↗', '0.02', 'A'], 'Outside diameter: circular run-out');
+	s.line([44, v(0, -9)[1]], [44, 136.5], 'thin');
 	s.dimension(v(13, 6), v(13, -6), 'v', v(13, 0)[0], 'Ø12 H7', {
 		label: 'Bore',
 		kind: 'size',
 		shift: -10
 	});
-	s.dimension(v(0, -9), v(20, -9), 'h', 136, '20', { label: 'Length', kind: 'size' });
+	// Datum A, the bore's axis: the datum triangle on the end of the bore's dimension line.
+	s.datum('A', v(13, -6), [v(13, 0)[0], v(0, -9)[1] + 7.5], 'Datum A: bore axis');
+	s.dimension(v(0, -9), v(20, -9), 'h', 139, '20', { label: 'Length', kind: 'size' });
 }

@@ -56,12 +56,15 @@ function drawBracket(s: Sheet) {
 	s.centreMark(pivot, 0.75 * k, 3);
 
 	s.holeLeader(pivot, hole * k, 50, [344, 76], 'Ø.250-.2515', 'Pivot hole');
+	s.frame([344, 85.5], ['⊥', 'Ø.002', 'A'], 'Pivot hole: perpendicularity');
 	const arcPoint = w(0.75 - 0.75 * Math.SQRT1_2, 1.25 + 0.75 * Math.SQRT1_2);
 	s.leader(arcPoint, [270, 84], 'R.75', 'Tab end radius', 'dimension');
 	s.dimension(w(0, 0), w(1.5, 0), 'h', 204, '1.50', { label: 'Tab width' });
 	s.dimension(pivot, w(1.5, 0), 'v', 372, '1.250', { label: 'Pivot height' });
 
 	s.dimension(v(2.75, 2), v(3, 2), 'h', 76, '.250 ±.005', { label: 'Tab thickness', kind: 'size' });
+	// Datum A, the tab's outer face, to which the pivot hole is square.
+	s.datum('A', v(3, 1.6), [v(3, 1.6)[0] + 14, v(3, 1.6)[1]], 'Datum A: tab face');
 	const frameAt: Pt = [250, v(0, 0.8)[1]];
 	const [frameLeft] = s.frame(frameAt, ['⏥', '.015'], 'Tab: flatness');
 	s.line([frameLeft, frameAt[1]], v(3, 0.8), 'thin');
