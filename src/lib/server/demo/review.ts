@@ -5,6 +5,7 @@
  * "deliberate"; everything else is meant to be right.
  */
 import type { RulebookDrawing, RulebookFeature, RulebookFit } from '../../tolerance/rulebook';
+import type { GeometricControl } from '../../tolerance/feature';
 
 export interface DemoReview {
 	number: string;
@@ -15,6 +16,16 @@ export interface DemoReview {
 }
 
 const isoGeneral = { kind: 'iso2768', linear: 'm', geometric: 'K' } as const;
+
+/** Circular run-out 0.02 to datum A: how the shaft and the bushing hold a diameter true. */
+const runOutToA = {
+	characteristic: 'circular-runout',
+	value: '0.02',
+	diameterZone: false,
+	appliesTo: 'surface',
+	modifier: 'rfs',
+	datums: ['A']
+} satisfies GeometricControl;
 
 export const housing: DemoReview = {
 	number: 'KF-1001',
@@ -135,16 +146,7 @@ export const shaft: DemoReview = {
 			internal: false,
 			callout: 'Ø10 h6 Ⓔ',
 			// The coupling end runs true to the journal.
-			controls: [
-				{
-					characteristic: 'circular-runout',
-					value: '0.02',
-					diameterZone: false,
-					appliesTo: 'surface',
-					modifier: 'rfs',
-					datums: ['A']
-				}
-			]
+			controls: [runOutToA]
 		},
 		{
 			id: 'kf1002-keyway',
@@ -187,16 +189,7 @@ export const bushing: DemoReview = {
 			kind: 'shaft',
 			internal: false,
 			callout: 'Ø18 p6 Ⓔ',
-			controls: [
-				{
-					characteristic: 'circular-runout',
-					value: '0.02',
-					diameterZone: false,
-					appliesTo: 'surface',
-					modifier: 'rfs',
-					datums: ['A']
-				}
-			]
+			controls: [runOutToA]
 		},
 		{
 			id: 'kf1003-length',
