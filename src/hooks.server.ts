@@ -2,7 +2,7 @@ import { json, text, type Handle, type HandleServerError, type ServerInit } from
 import { sequence } from '@sveltejs/kit/hooks';
 import { env } from '$env/dynamic/private';
 import { apiErrors } from '$lib/server/api';
-import { authHandle, userFromSession } from '$lib/server/auth';
+import { authHandle, userFromSession, type CurrentUser } from '$lib/server/auth';
 import { bodyLimit } from '$lib/server/body-limit';
 import { config } from '$lib/server/config';
 import { db, startDatabase } from '$lib/server/db';
@@ -49,6 +49,10 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	response.headers.set('Referrer-Policy', 'same-origin');
 	response.headers.set('X-Content-Type-Options', 'nosniff');
 	response.headers.set('X-Frame-Options', 'DENY');
+	// Only where the public origin is https (ORIGIN): a plain-http local start must stay reachable.
+	if (event.url.protocol === 'https:') {
+		response.headers.set('Strict-Transport-Security', 'max-age=31536000');
+	}
 	return response;
 };
 
@@ -58,22 +62,35 @@ const bearerOf = (request: Request) =>
 
 const formTypes = ['application/x-www-form-urlencoded', 'multipart/form-data', 'text/plain'];
 
+/** The user a valid personal API token names, looked up once per request (only on `/api/`). */
+const apiTokenUsers = new WeakMap<Request, CurrentUser>();
+
 /**
- * Cross-site protection (SvelteKit's own check is off, see svelte.config.js). A browser can send
- * a form-encoded, multipart or plain-text request cross-site without asking first, with the
- * session cookie: those must come from our origin unless they carry a Bearer token. Other
- * bodies (JSON) and methods need a CORS preflight, which we never grant.
+ * Cross-site protection (SvelteKit's own check is off, see svelte.config.js). An unsafe request
+ * must come from our own page (`Origin` is ours, or `Sec-Fetch-Site: same-origin`) when it
+ * carries the session cookie, and always when its body is one a browser sends cross-site
+ * without asking first (form, multipart, plain text). Only a valid personal token on `/api/`
+ * is exempt: a script sends no `Origin`. JSON without the cookie passes, so the public
+ * calculations (`/api/v1/calc/…`) stay open to other sites' scripts, as the API promises.
  */
 const sameOrigin: Handle = async ({ event, resolve }) => {
 	const { request, url } = event;
+	if (!unsafeMethods.has(request.method)) return resolve(event);
+	const bearer = url.pathname.startsWith('/api/') ? bearerOf(request) : null;
+	if (bearer) {
+		const user = await userForApiToken(db, bearer);
+		if (user) {
+			apiTokenUsers.set(request, { id: user.id, name: user.name, email: user.email });
+			return resolve(event);
+		}
+	}
 	const type = request.headers.get('content-type')?.split(';')[0].trim().toLowerCase() ?? '';
-	if (
-		unsafeMethods.has(request.method) &&
-		formTypes.includes(type) &&
-		!bearerOf(request) &&
-		request.headers.get('origin') !== url.origin
-	) {
-		const message = `Cross-site ${request.method} form submissions are refused`;
+	const withSession = event.cookies.getAll().some((c) => c.name.includes('authjs.session-token'));
+	const ours =
+		request.headers.get('origin') === url.origin ||
+		request.headers.get('sec-fetch-site') === 'same-origin';
+	if (!ours && (withSession || formTypes.includes(type))) {
+		const message = `Cross-site ${request.method} requests are refused`;
 		return url.pathname.startsWith('/api/') || request.headers.get('accept') === 'application/json'
 			? json({ error: { code: 'forbidden', message } }, { status: 403 })
 			: text(message, { status: 403 });
@@ -85,7 +102,8 @@ const currentUser: Handle = async ({ event, resolve }) => {
 	const bearer = event.url.pathname.startsWith('/api/') ? bearerOf(event.request) : null;
 	event.locals.viaApiToken = Boolean(bearer);
 	if (bearer) {
-		const user = await userForApiToken(db, bearer);
+		const known = apiTokenUsers.get(event.request);
+		const user = known ?? (await userForApiToken(db, bearer));
 		event.locals.user = user ? { id: user.id, name: user.name, email: user.email } : null;
 	} else {
 		event.locals.user = await userFromSession(event);

@@ -4,6 +4,7 @@
  */
 import { error } from '@sveltejs/kit';
 import type { z } from 'zod';
+import { requireJsonType } from '$lib/server/api-input';
 import {
 	CAUTION,
 	adviseInput,
@@ -30,6 +31,7 @@ export function parseOrFail<T extends z.ZodType>(schema: T, data: unknown): z.ou
 }
 
 export async function readJson(request: Request): Promise<unknown> {
+	requireJsonType(request);
 	try {
 		return await request.json();
 	} catch {

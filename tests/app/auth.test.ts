@@ -7,8 +7,8 @@ async function signUpAndVerify(client: Client, password = 'pump housing bore 18'
 	const result = await client.submit('/signup', { name: 'Ada Reviewer', email, password });
 	expect(result).toMatchObject({ type: 'redirect', location: '/signup?sent=1' });
 	const mail = await waitForMail(email, /Confirm your e-mail/);
-	const verified = await client.get(linkIn(mail, '/verify'));
-	expect(verified.headers.get('location')).toBe('/signin?verified=1');
+	const verified = await client.confirmAddress(linkIn(mail, '/verify'));
+	expect(verified).toMatchObject({ type: 'redirect', location: '/signin?verified=1' });
 	return { email, password };
 }
 
@@ -42,8 +42,18 @@ describe('sign-up and e-mail verification', () => {
 		const mail = await waitForMail(email, /Confirm your e-mail/);
 		expect(mail.html).toContain('/verify?token=');
 		const link = linkIn(mail, '/verify');
-		expect((await client.get(link)).headers.get('location')).toBe('/signin?verified=1');
-		expect((await client.get(link)).status).toBe(200); // used: the page explains, nothing more
+		// Opening the link (as a mail scanner does) uses nothing up: the page shows a button.
+		const page = await client.get(link);
+		expect(page.status).toBe(200);
+		expect(await page.text()).toContain('Confirm my address');
+		expect(await client.signIn(email, 'dowel hole six mm')).toMatchObject({ status: 401 });
+		expect(await client.confirmAddress(link)).toMatchObject({
+			type: 'redirect',
+			location: '/signin?verified=1'
+		});
+		// Used: the page explains, nothing more.
+		expect(await client.confirmAddress(link)).toMatchObject({ type: 'failure', status: 400 });
+		expect(await (await client.get(link)).text()).not.toContain('Confirm my address');
 		expect(await client.signIn(email, 'dowel hole six mm')).toMatchObject({ type: 'redirect' });
 		expect((await client.me()).status).toBe(200);
 	});

@@ -208,6 +208,15 @@ describe('revision uploads', () => {
 		expect(whole.headers.get('content-type')).toBe('application/pdf');
 		expect(whole.headers.get('content-disposition')).toContain(`${number}-A.pdf`);
 		expect(new Uint8Array(await whole.arrayBuffer())).toEqual(bytes);
+		// Opened on its own it runs nothing; every use asks again, so losing access takes effect.
+		expect(whole.headers.get('content-security-policy')).toBe('sandbox');
+		expect(whole.headers.get('cache-control')).toBe('private, no-cache');
+		const etag = whole.headers.get('etag')!;
+		expect(etag).toBe(`"${createHash('sha256').update(bytes).digest('hex')}"`);
+		const again = await fetch(new URL(`/api/v1${path}`, baseUrl), {
+			headers: { authorization: `Bearer ${token}`, 'if-none-match': etag }
+		});
+		expect(again.status).toBe(304);
 		const part = await fetch(new URL(`/api/v1${path}`, baseUrl), {
 			headers: { authorization: `Bearer ${token}`, range: 'bytes=100-199' }
 		});

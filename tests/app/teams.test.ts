@@ -222,8 +222,8 @@ describe('team rules', () => {
 			body: form
 		});
 		// Past the origin check: the route itself answers that it wants JSON.
-		expect(multipart.status).toBe(400);
-		expect((await multipart.json()).error.code).toBe('invalid');
+		expect(multipart.status).toBe(415);
+		expect((await multipart.json()).error.code).toBe('unsupported_media_type');
 	});
 
 	it('records every change in the activity trail, newest first', async () => {

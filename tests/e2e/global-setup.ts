@@ -66,10 +66,11 @@ export async function startApp(dataDir: string, env: Record<string, string> = {}
 		child.stdout!.on('data', (chunk: Buffer) => {
 			output += chunk.toString();
 			appendFileSync(log, chunk);
-			const match = /running at (http:\/\/\S+)/.exec(output);
+			const match = /running at (https?:\/\/\S+)/.exec(output);
 			if (match) {
 				clearTimeout(timer);
-				resolve(match[1]);
+				// A public https origin (ORIGIN) is a proxy's; the app itself answers plain http here.
+				resolve(match[1].startsWith('https:') ? `http://127.0.0.1:${port}` : match[1]);
 			}
 		});
 		child.once('exit', (code) => reject(new Error(`app exited with ${code}:\n${output}`)));

@@ -150,9 +150,13 @@ describe('POST /api/v1/calc/size', () => {
 		});
 	});
 
-	test('a body that is not JSON', async () => {
+	test.each([
+		['declared JSON but is not', 'application/json', 400],
+		['is not declared JSON (415: a browser sends that cross-site unasked)', 'text/plain', 415]
+	])('a body that %s', async (_, type, status) => {
 		const request = new Request('http://localhost/api/v1/calc/size', {
 			method: 'POST',
+			headers: { 'content-type': type },
 			body: 'callout=25'
 		});
 		try {
@@ -162,7 +166,7 @@ describe('POST /api/v1/calc/size', () => {
 			} as unknown as RequestEvent);
 			expect.unreachable();
 		} catch (e) {
-			expect(isHttpError(e) && e.status).toBe(400);
+			expect(isHttpError(e) && e.status).toBe(status);
 		}
 	});
 });

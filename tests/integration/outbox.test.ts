@@ -8,6 +8,7 @@ import {
 	pendingMailCount,
 	queueMail
 } from '../../src/lib/server/mail/outbox';
+import { outbox } from '../../src/lib/server/db/schema';
 import { freshDatabase, startFakes } from './harness';
 
 let database: Database;
@@ -53,5 +54,29 @@ describe('the outbox', () => {
 		expect(caught[0].messageId).toBe(messageIdOf(row));
 		up.close();
 		down.close();
+	});
+
+	it('keeps no copy of a sent sign-in, reset, invitation or confirmation link; other mail stays', async () => {
+		const kinds = ['sign-in-link', 'reset-password', 'invitation', 'verify-email'];
+		const secret = 'https://checkplate.test/auth/callback/nodemailer?token=secret-key';
+		const rows = await Promise.all(
+			kinds.map((kind) =>
+				queueMail(database.db, { ...mail, kind, text: secret, html: `<a href="${secret}">x</a>` })
+			)
+		);
+		const kept = await queueMail(database.db, mail);
+		const smtp = createMailer(fakes.smtpUrl, 'Checkplate <c@example.test>');
+		expect(await deliverDueMail(database.db, smtp)).toEqual({ sent: 5, failed: 0 });
+		const stored = await database.db.select().from(outbox);
+		for (const row of rows) {
+			expect(stored.find((s) => s.id === row.id)).toMatchObject({ text: '', html: '' });
+		}
+		expect(stored.find((s) => s.id === kept.id)).toMatchObject({
+			text: mail.text,
+			html: mail.html
+		});
+		const caught = await listCaughtMail(fakes.mailDir);
+		expect(caught.filter((m) => m.text.includes('secret-key'))).toHaveLength(4);
+		smtp.close();
 	});
 });

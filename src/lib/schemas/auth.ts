@@ -6,14 +6,19 @@ export const email = z
 	.toLowerCase()
 	.pipe(z.email({ error: 'Enter a valid e-mail address' }));
 
+/** bcrypt reads only the first 72 bytes of a password; a longer one would be cut silently. */
+export const passwordMaxBytes = 72;
+
 /**
  * Length over composition rules (NIST SP 800-63B §5.1.1.2): at least 10 characters, and not
- * one character repeated or the e-mail address itself.
+ * one character repeated or the e-mail address itself; at most 72 bytes, all of which count.
  */
 export const newPassword = z
 	.string({ error: 'Choose a password' })
 	.min(10, { error: 'Use at least 10 characters' })
-	.max(200, { error: 'Use at most 200 characters' })
+	.refine((p) => new TextEncoder().encode(p).length <= passwordMaxBytes, {
+		error: `Use at most ${passwordMaxBytes} bytes (about ${passwordMaxBytes} plain letters)`
+	})
 	.refine((p) => new Set(p).size >= 4, { error: 'Use a less repetitive password' });
 
 export const signInInput = z.object({

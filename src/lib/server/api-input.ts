@@ -1,11 +1,16 @@
 import { error } from '@sveltejs/kit';
 import { z } from 'zod';
 
-/** Reads and validates a JSON body; a bad one is a 400 `invalid` naming the fields. */
+/**
+ * Reads and validates a JSON body; a bad one is a 400 `invalid` naming the fields. Only a body
+ * declared `application/json` is read (415 otherwise): a browser cannot send that cross-site
+ * without a CORS preflight, which the app never grants.
+ */
 export async function readJson<S extends z.ZodType>(
 	request: Request,
 	schema: S
 ): Promise<z.infer<S>> {
+	requireJsonType(request);
 	let body: unknown;
 	try {
 		body = await request.json();
@@ -13,6 +18,14 @@ export async function readJson<S extends z.ZodType>(
 		error(400, { message: 'The body must be JSON', code: 'invalid' });
 	}
 	return parseOrRefuse(schema, body);
+}
+
+/** A body not declared `application/json` is a 415, before it is read. */
+export function requireJsonType(request: Request) {
+	const type = request.headers.get('content-type')?.split(';')[0].trim().toLowerCase();
+	if (type !== 'application/json') {
+		error(415, { message: 'Send the body as application/json', code: 'unsupported_media_type' });
+	}
 }
 
 /**

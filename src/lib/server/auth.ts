@@ -88,7 +88,8 @@ async function buildConfig(): Promise<AuthConfig> {
 			Nodemailer({
 				server: settings.smtpUrl,
 				from: settings.mailFrom,
-				maxAge: 24 * 60 * 60,
+				// A link in a mailbox is a key to the account: short-lived.
+				maxAge: 15 * 60,
 				// Our outbox sends it (and retries); nothing goes to an address without an account,
 				// while the page says the same thing either way.
 				async sendVerificationRequest({ identifier, url }) {

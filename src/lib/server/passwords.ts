@@ -1,8 +1,13 @@
 import bcrypt from 'bcryptjs';
+import { passwordMaxBytes } from '../schemas/auth';
 
 const cost = 11;
 
+/** New passwords are checked against the limit first (`newPassword`); this is the last guard. */
 export function hashPassword(password: string) {
+	if (Buffer.byteLength(password) > passwordMaxBytes) {
+		throw new Error(`A password longer than ${passwordMaxBytes} bytes cannot be hashed whole`);
+	}
 	return bcrypt.hash(password, cost);
 }
 

@@ -11,6 +11,14 @@ export interface QueuedMail {
 	kind: string;
 }
 
+/** Mail whose body carries a key to an account: once sent, the outbox keeps no copy of it. */
+export const secretKinds = new Set([
+	'verify-email',
+	'reset-password',
+	'sign-in-link',
+	'invitation'
+]);
+
 /** The Message-ID stays the same on every retry, so a receiver can drop a duplicate. */
 export function messageIdOf(row: Pick<OutboxRow, 'id'>, domain = 'checkplate.local') {
 	return `<${row.id}@${domain}>`;
@@ -69,7 +77,12 @@ export async function deliverDueMail(db: Db, mailer: Mailer, now = new Date(), l
 			});
 			await db
 				.update(outbox)
-				.set({ sentAt: new Date(), attempts: row.attempts + 1, lastError: null })
+				.set({
+					sentAt: new Date(),
+					attempts: row.attempts + 1,
+					lastError: null,
+					...(secretKinds.has(row.kind) ? { text: '', html: '' } : {})
+				})
 				.where(eq(outbox.id, row.id));
 			sent++;
 		} catch (err) {

@@ -1,8 +1,14 @@
 import { redirect } from '@sveltejs/kit';
 import { changePasswordInput } from '$lib/schemas/auth';
-import { signInWith, signOutHere } from '$lib/server/auth';
+import { attemptKeys, signInWith, signOutHere } from '$lib/server/auth';
+import { isRateLimited, recordAttempt } from '$lib/server/db/queries/attempts';
 import { db } from '$lib/server/db';
-import { endAllSessions, getUserById, setPassword } from '$lib/server/db/queries/users';
+import {
+	endAllSessions,
+	endSessions,
+	getUserById,
+	setPassword
+} from '$lib/server/db/queries/users';
 import { parseForm, refuseForm } from '$lib/server/forms';
 import { requireUser } from '$lib/server/guards';
 import { hashPassword, verifyPassword } from '$lib/server/passwords';
@@ -18,8 +24,18 @@ export const actions: Actions = {
 		const user = requireUser();
 		const form = await parseForm(event.request, changePasswordInput);
 		if (!form.ok) return form.failure;
+		// A wrong current password is a sign-in guess: it counts against the same limit.
+		const keys = attemptKeys(user.email, event.getClientAddress());
+		if (await isRateLimited(db, 'sign-in', keys)) {
+			return refuseForm(
+				429,
+				{ currentPassword: ['Too many attempts. Wait a few minutes, then try again.'] },
+				{}
+			);
+		}
 		const row = await getUserById(db, user.id);
 		if (!(await verifyPassword(form.data.currentPassword, row?.passwordHash))) {
+			await recordAttempt(db, 'sign-in', keys);
 			return refuseForm(400, { currentPassword: ['That is not your current password'] }, {});
 		}
 		// Other devices are signed out; this one signs in again with the new password.
@@ -34,6 +50,8 @@ export const actions: Actions = {
 		redirect(303, '/signin');
 	},
 	signout: async (event) => {
+		// The session token is a signed cookie: only a new generation makes a copy of it useless.
+		if (event.locals.user) await endSessions(db, event.locals.user.id);
 		signOutHere(event);
 		redirect(303, '/signin');
 	}

@@ -15,7 +15,7 @@ const messages = {
 };
 
 export const load: PageServerLoad = async ({ locals, url }) => {
-	if (locals.user) redirect(303, safeRedirect(url.searchParams.get('redirectTo')));
+	if (locals.user) redirect(303, safeRedirect(url.searchParams.get('redirectTo'), url.origin));
 	return {
 		sent: url.searchParams.has('sent'),
 		linkFailed: url.searchParams.has('error'),
@@ -33,7 +33,7 @@ export const actions: Actions = {
 			const status = outcome.code === 'rate_limited' ? 429 : 401;
 			return fail(status, { values: form.values, message: messages[outcome.code] });
 		}
-		redirect(303, safeRedirect(event.url.searchParams.get('redirectTo')));
+		redirect(303, safeRedirect(event.url.searchParams.get('redirectTo'), event.url.origin));
 	},
 	link: async (event) => {
 		const form = await parseForm(event.request, signInLinkInput, ['email']);

@@ -22,6 +22,22 @@ export async function issueUserToken(db: Db, userId: string, purpose: Purpose, t
 export type ConsumeResult =
 	{ ok: true; userId: string } | { ok: false; reason: 'invalid' | 'expired' };
 
+/** Whether a token would be accepted now, without using it (a page shows what it confirms). */
+export async function peekUserToken(
+	db: Db,
+	token: string,
+	purpose: Purpose,
+	now = new Date()
+): Promise<{ ok: true } | { ok: false; reason: 'invalid' | 'expired' }> {
+	const [row] = await db
+		.select({ usedAt: userTokens.usedAt, expiresAt: userTokens.expiresAt })
+		.from(userTokens)
+		.where(and(eq(userTokens.tokenHash, hashToken(token)), eq(userTokens.purpose, purpose)));
+	if (!row || row.usedAt) return { ok: false, reason: 'invalid' };
+	if (row.expiresAt <= now) return { ok: false, reason: 'expired' };
+	return { ok: true };
+}
+
 /**
  * Uses a token once. Looking it up by its hash means no secret is compared byte by byte, and
  * the conditional update makes a second use fail even when two requests race.

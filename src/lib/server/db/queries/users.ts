@@ -91,6 +91,14 @@ export async function setPassword(db: Db, userId: string, passwordHash: string) 
 	await endCredentials(db, userId, { passwordHash });
 }
 
+/** Ends every session of the user (signing out: a copied session cookie stops working too). */
+export async function endSessions(db: Db, userId: string) {
+	await db
+		.update(users)
+		.set({ sessionGeneration: sql`${users.sessionGeneration} + 1` })
+		.where(eq(users.id, userId));
+}
+
 /** Ends every session and API token of the user at once. */
 export async function endAllSessions(db: Db, userId: string) {
 	await endCredentials(db, userId, {});

@@ -18,9 +18,12 @@ export const GET: RequestHandler = async ({ params, request }) => {
 	const headers = new Headers({
 		'content-type': 'application/pdf',
 		'accept-ranges': 'bytes',
-		// A revision's bytes never change: the hash names them.
+		// A revision's bytes never change (the hash names them), but access can: the browser
+		// asks again on each use and gets a 304 while it may still see the file.
 		etag: `"${revision.sha256}"`,
-		'cache-control': 'private, max-age=31536000, immutable',
+		'cache-control': 'private, no-cache',
+		// Opened on its own, the PDF runs no script and reaches nothing of the app's origin.
+		'content-security-policy': 'sandbox',
 		'content-disposition': `inline; filename="${drawing.number}-${revision.letter}.pdf"`
 	});
 	if (range === 'unsatisfiable') {
