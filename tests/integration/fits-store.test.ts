@@ -6,7 +6,14 @@ import { createDrawing, insertRevision } from '../../src/lib/server/db/queries/d
 import { createTeam } from '../../src/lib/server/db/queries/teams';
 import { createUser } from '../../src/lib/server/db/queries/users';
 import { addFeature, removeFeature, type FeaturePlace } from '../../src/lib/server/features';
-import { addFit, editFit, fitsOf, removeFit, type FitPlace } from '../../src/lib/server/fits';
+import {
+	addFit,
+	editFit,
+	fitsOf,
+	removeFit,
+	visibleFitOf,
+	type FitPlace
+} from '../../src/lib/server/fits';
 import { featureInput } from '../../src/lib/schemas/features';
 import { fitCreate, fitPatch, fitResponse } from '../../src/lib/schemas/fits';
 import type { FeatureJson } from '../../src/lib/features';
@@ -178,6 +185,29 @@ describe('fits across drawings', () => {
 			ok: true
 		});
 		expect(await fitsOf(database.db, other)).toEqual([]);
+	});
+
+	it('are shown to someone who reads released revisions only when every member is released', async () => {
+		const { hole, other, bore, journal } = await pair();
+		const made = await addFit(
+			database.db,
+			actor,
+			hole,
+			fitCreate.parse({ holeFeatureId: bore.id, shaftFeatureId: journal.id })
+		);
+		if (!made.ok) throw new Error(made.message);
+		const release = (id: string) =>
+			database.db.update(revisions).set({ state: 'released' }).where(eq(revisions.id, id));
+		await release(hole.revision.id);
+		const [row] = await listFits(database.db, hole.revision.id);
+		// Supplier quality on the released bushing: the journal's revision is still a draft.
+		const quality = { ...hole, releasedOnly: true };
+		expect(await fitsOf(database.db, quality)).toEqual([]);
+		expect(await visibleFitOf(database.db, quality, row)).toBeNull();
+		expect((await fitsOf(database.db, hole)).map((f) => f.id)).toEqual([made.fit.id]);
+		await release(other.revision.id);
+		expect((await fitsOf(database.db, quality)).map((f) => f.id)).toEqual([made.fit.id]);
+		expect((await visibleFitOf(database.db, quality, row))?.id).toBe(made.fit.id);
 	});
 
 	it('refuse a hole of another revision and a shaft of another team, storing nothing', async () => {

@@ -2,12 +2,17 @@ import { error } from '@sveltejs/kit';
 import { can, type Capability } from './capabilities';
 import { db } from './db';
 import { isUuid } from './api-input';
-import { getDrawing, getRevision, listRevisions } from './db/queries/drawings';
+import {
+	getDrawing,
+	getRevision,
+	isVisibleToSuppliers,
+	listRevisions
+} from './db/queries/drawings';
 import { getFeature } from './db/queries/features';
 import { getFit } from './db/queries/fits';
 import { requireMember } from './guards';
 
-function notFound(): never {
+export function notFound(): never {
 	error(404, { message: 'Not found', code: 'not_found' });
 }
 
@@ -35,7 +40,7 @@ export async function requireRevision(
 	const access = await requireDrawing(teamSlug, number, capability);
 	const revision = await getRevision(db, access.drawing.id, letter);
 	if (!revision) notFound();
-	if (access.releasedOnly && !['released', 'superseded'].includes(revision.state)) notFound();
+	if (access.releasedOnly && !isVisibleToSuppliers(revision.state)) notFound();
 	return { ...access, revision };
 }
 
@@ -67,7 +72,7 @@ export async function requireFit(
  */
 export async function requireExport(params: { team: string; number: string; letter: string }) {
 	const place = await requireRevision(params.team, params.number, params.letter, 'exportReleased');
-	const released = ['released', 'superseded'].includes(place.revision.state);
+	const released = isVisibleToSuppliers(place.revision.state);
 	if (!released && !can(place.membership.role, 'exportUnreleased')) {
 		error(403, {
 			message: 'Your role exports released revisions only',

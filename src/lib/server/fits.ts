@@ -18,6 +18,7 @@ import { sizeFindings } from '$lib/tolerance/rulebook';
 import type { Db } from './db/connect';
 import type { Actor } from './db/queries/activity';
 import { RevisionFrozen } from './db/queries/features';
+import { isVisibleToSuppliers } from './db/queries/drawings';
 import {
 	createFit,
 	deleteFit,
@@ -35,6 +36,8 @@ export interface FitPlace {
 	team: Pick<TeamRow, 'id' | 'settings'>;
 	drawing: DrawingRow;
 	revision: RevisionRow;
+	/** The asker sees released revisions only (supplier quality). */
+	releasedOnly?: boolean;
 }
 
 export type FitRefusal = {
@@ -217,12 +220,31 @@ async function membersOf(db: Db, teamId: string, rows: FitRow[]) {
 export async function fitsOf(db: Db, place: FitPlace) {
 	const rows = await listFits(db, place.revision.id);
 	const members = await membersOf(db, place.team.id, rows);
-	return rows.map((row) => fitAnswer(place, row, members(row)));
+	return rows
+		.filter((row) => visible(place, members(row)))
+		.map((row) => fitAnswer(place, row, members(row)));
 }
 
 export async function fitOf(db: Db, place: FitPlace, row: FitRow) {
 	const members = await membersOf(db, place.team.id, [row]);
 	return fitAnswer(place, row, members(row));
+}
+
+/** The fit as the asker may see it, or null when one of its members is hidden from them. */
+export async function visibleFitOf(db: Db, place: FitPlace, row: FitRow) {
+	const members = (await membersOf(db, place.team.id, [row]))(row);
+	return visible(place, members) ? fitAnswer(place, row, members) : null;
+}
+
+/**
+ * Someone who reads released revisions only sees a fit only when every member's revision is
+ * released (or superseded): the answer names the other members and their limits.
+ */
+function visible(place: FitPlace, m: Members) {
+	if (!place.releasedOnly) return true;
+	return [m.hole, m.shaft, m.fixedHole].every(
+		(member) => !member || isVisibleToSuppliers(member.revision.state)
+	);
 }
 
 const invalid = (message: string, field: string, position?: number | null): FitRefusal => ({

@@ -16,7 +16,10 @@ export type DrawingInput = Omit<
 	'id' | 'teamId' | 'version' | 'nextBalloon' | 'createdBy' | 'createdAt' | 'updatedAt'
 >;
 
-const visibleToSuppliers = ['released', 'superseded'] as const;
+/** The revision states someone who reads released revisions only may see. */
+export const visibleToSuppliers = ['released', 'superseded'] as const;
+export const isVisibleToSuppliers = (state: string) =>
+	(visibleToSuppliers as readonly string[]).includes(state);
 
 /** Drawings with their latest revision; `releasedOnly` hides what supplier quality may not see. */
 export async function listDrawings(db: Db, teamId: string, options: { releasedOnly: boolean }) {

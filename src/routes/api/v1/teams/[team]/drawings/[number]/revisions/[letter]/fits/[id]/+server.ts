@@ -4,13 +4,15 @@ import { fitPatch } from '$lib/schemas/fits';
 import { refuse } from '$lib/server/api';
 import { readJson, readQuery } from '$lib/server/api-input';
 import { db } from '$lib/server/db';
-import { requireFit } from '$lib/server/drawings';
-import { editFit, fitOf, removeFit } from '$lib/server/fits';
+import { notFound, requireFit } from '$lib/server/drawings';
+import { editFit, removeFit, visibleFitOf } from '$lib/server/fits';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = async ({ params }) => {
 	const { place, fit } = await requireFit(params, 'view');
-	return json(await fitOf(db, place, fit));
+	const answer = await visibleFitOf(db, place, fit);
+	if (!answer) notFound();
+	return json(answer);
 };
 
 export const PATCH: RequestHandler = async ({ params, request }) => {
