@@ -102,3 +102,14 @@ console.log(`  speed ratio app/raw   ${(appRate / rawRate).toFixed(2)}   (target
 console.log(
 	`  memory ratio app/raw  ${(appGrowth / rawResult.growth).toFixed(2)}   (target ≤ 1.2)`
 );
+console.log(
+	JSON.stringify({
+		megabytes: mb,
+		appMs: appSeconds * 1000,
+		rawMs: rawResult.seconds * 1000,
+		speedRatio: appRate / rawRate,
+		appGrowthMiB: appGrowth / MiB,
+		rawGrowthMiB: rawResult.growth / MiB,
+		memoryRatio: appGrowth / rawResult.growth
+	})
+);
