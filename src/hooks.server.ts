@@ -2,7 +2,13 @@ import { json, text, type Handle, type HandleServerError, type ServerInit } from
 import { sequence } from '@sveltejs/kit/hooks';
 import { env } from '$env/dynamic/private';
 import { apiErrors } from '$lib/server/api';
-import { authHandle, userFromSession, type CurrentUser } from '$lib/server/auth';
+import {
+	authHandle,
+	signInWait,
+	spendSignInLink,
+	userFromSession,
+	type CurrentUser
+} from '$lib/server/auth';
 import { bodyLimit } from '$lib/server/body-limit';
 import { config } from '$lib/server/config';
 import { db, startDatabase } from '$lib/server/db';
@@ -45,7 +51,11 @@ export const init: ServerInit = async () => {
 };
 
 const securityHeaders: Handle = async ({ event, resolve }) => {
-	const response = await resolve(event);
+	let response = await resolve(event);
+	// A `Response.redirect` (the auth library answers failed sign-ins with one) cannot be changed.
+	if (!canSetHeaders(response)) {
+		response = new Response(response.body, response);
+	}
 	response.headers.set('Referrer-Policy', 'same-origin');
 	response.headers.set('X-Content-Type-Options', 'nosniff');
 	response.headers.set('X-Frame-Options', 'DENY');
@@ -55,6 +65,15 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	}
 	return response;
 };
+
+function canSetHeaders(response: Response) {
+	try {
+		response.headers.set('x-content-type-options', 'nosniff');
+		return true;
+	} catch {
+		return false;
+	}
+}
 
 const unsafeMethods = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 const bearerOf = (request: Request) =>
@@ -98,6 +117,36 @@ const sameOrigin: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
+/** A 429 with the wait in Retry-After, as JSON or text after what the client asked for. */
+function tooManyRequests(request: Request, retryAfter: number) {
+	const message = `Too many attempts: try again in ${retryAfter} s`;
+	const headers = { 'retry-after': String(retryAfter) };
+	return request.headers.get('accept')?.includes('application/json')
+		? json({ error: { code: 'rate_limited', message, retryAfter } }, { status: 429, headers })
+		: text(message, { status: 429, headers });
+}
+
+/**
+ * The auth library's own routes take a sign-in or send a link without our form actions:
+ * the same limits hold there. A password sign-in waiting out its delay is answered 429 before
+ * the password is looked at (the library's authorize records failures); each sign-in link
+ * request counts.
+ */
+const authRouteLimits: Handle = async ({ event, resolve }) => {
+	const { request, url } = event;
+	if (request.method !== 'POST' || !url.pathname.startsWith('/auth/')) return resolve(event);
+	const link = url.pathname.startsWith('/auth/signin/');
+	if (!link && !url.pathname.startsWith('/auth/callback/credentials')) return resolve(event);
+	const form = await request
+		.clone()
+		.formData()
+		.catch(() => null);
+	const email = String(form?.get('email') ?? '');
+	const address = event.getClientAddress();
+	const wait = link ? await spendSignInLink(email, address) : await signInWait(email, address);
+	return wait > 0 ? tooManyRequests(request, wait) : resolve(event);
+};
+
 const currentUser: Handle = async ({ event, resolve }) => {
 	const bearer = event.url.pathname.startsWith('/api/') ? bearerOf(event.request) : null;
 	event.locals.viaApiToken = Boolean(bearer);
@@ -116,6 +165,7 @@ export const handle = sequence(
 	apiErrors,
 	bodyLimit,
 	sameOrigin,
+	authRouteLimits,
 	authHandle,
 	currentUser
 );

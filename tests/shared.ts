@@ -21,9 +21,9 @@ interface CaughtMail {
 	messageId: string;
 }
 
-/** The mail the stand-in caught, newest first. */
-export function caughtMail(): CaughtMail[] {
-	const dir = join(inject('dataDir'), 'mail');
+/** The mail the stand-in caught, newest first (of the test app, or of the app in `dataDir`). */
+export function caughtMail(dataDir = inject('dataDir')): CaughtMail[] {
+	const dir = join(dataDir, 'mail');
 	return readdirSync(dir)
 		.filter((name) => name.endsWith('.json'))
 		.sort()
@@ -32,11 +32,16 @@ export function caughtMail(): CaughtMail[] {
 }
 
 /** Waits for a message to `to` whose subject matches, as the outbox delivers within seconds. */
-export async function waitForMail(to: string, subject: RegExp, timeoutMs = 15_000) {
+export async function waitForMail(
+	to: string,
+	subject: RegExp,
+	timeoutMs = 15_000,
+	dataDir = inject('dataDir')
+) {
 	const until = Date.now() + timeoutMs;
 	while (Date.now() < until) {
 		try {
-			const found = caughtMail().find((m) => m.to.includes(to) && subject.test(m.subject));
+			const found = caughtMail(dataDir).find((m) => m.to.includes(to) && subject.test(m.subject));
 			if (found) return found;
 		} catch {
 			// the mail folder appears with the first message

@@ -12,6 +12,14 @@ export { demoPassword };
 /** A minimal browser stand-in: keeps cookies, sends same-origin form posts like `use:enhance`. */
 export class Client {
 	cookies = new Map<string, string>();
+	private base: string;
+	private extra: Record<string, string>;
+
+	/** `base`: another app than the test app; `headers`: sent with every request (a proxy's). */
+	constructor(options: { base?: string; headers?: Record<string, string> } = {}) {
+		this.base = options.base ?? baseUrl;
+		this.extra = options.headers ?? {};
+	}
 
 	private cookieHeader() {
 		return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
@@ -30,8 +38,8 @@ export class Client {
 	}
 
 	async get(path: string, headers: Record<string, string> = {}) {
-		const response = await fetch(new URL(path, baseUrl), {
-			headers: { cookie: this.cookieHeader(), ...headers },
+		const response = await fetch(new URL(path, this.base), {
+			headers: { cookie: this.cookieHeader(), ...this.extra, ...headers },
 			redirect: 'manual'
 		});
 		this.keep(response);
@@ -49,11 +57,12 @@ export class Client {
 
 	/** Submits a form action; returns SvelteKit's action result `{type, status, data|location}`. */
 	async submit(path: string, fields: Record<string, string>) {
-		const response = await fetch(new URL(path, baseUrl), {
+		const response = await fetch(new URL(path, this.base), {
 			method: 'POST',
 			headers: {
+				...this.extra,
 				cookie: this.cookieHeader(),
-				origin: new URL(baseUrl).origin,
+				origin: new URL(this.base).origin,
 				'content-type': 'application/x-www-form-urlencoded',
 				accept: 'application/json',
 				'x-sveltekit-action': 'true'
@@ -71,21 +80,43 @@ export class Client {
 		return result;
 	}
 
+	/** A form post as a browser without scripts sends it: the answer is the page (or a redirect). */
+	async post(path: string, fields: Record<string, string>) {
+		const response = await fetch(new URL(path, this.base), {
+			method: 'POST',
+			headers: {
+				...this.extra,
+				cookie: this.cookieHeader(),
+				origin: new URL(this.base).origin,
+				'content-type': 'application/x-www-form-urlencoded',
+				accept: 'text/html'
+			},
+			body: new URLSearchParams(fields),
+			redirect: 'manual'
+		});
+		this.keep(response);
+		return response;
+	}
+
 	/** A JSON API call with the session cookie (and the Origin a browser sends). */
 	async api(method: string, path: string, body?: unknown) {
-		return apiCall(method, path, body, {
-			cookie: this.cookieHeader(),
-			origin: new URL(baseUrl).origin
-		});
+		return apiCall(
+			method,
+			path,
+			body,
+			{ ...this.extra, cookie: this.cookieHeader(), origin: new URL(this.base).origin },
+			this.base
+		);
 	}
 
 	/** A raw API call (CSV, multipart) with the session cookie and Origin. */
 	async send(method: string, path: string, body?: BodyInit, contentType?: string) {
-		return fetch(new URL(`/api/v1${path}`, baseUrl), {
+		return fetch(new URL(`/api/v1${path}`, this.base), {
 			method,
 			headers: {
+				...this.extra,
 				cookie: this.cookieHeader(),
-				origin: new URL(baseUrl).origin,
+				origin: new URL(this.base).origin,
 				...(contentType ? { 'content-type': contentType } : {})
 			},
 			body
@@ -95,12 +126,17 @@ export class Client {
 	/** Opens an address-confirmation link, then presses its button (posts `token` to the link). */
 	async confirmAddress(link: string) {
 		await this.get(link);
-		const token = new URL(link, baseUrl).searchParams.get('token') ?? '';
+		const token = new URL(link, this.base).searchParams.get('token') ?? '';
 		return this.submit(link, { token });
 	}
 
 	async signIn(email: string, password = demoPassword) {
 		return this.submit('/signin?/password', { email, password });
+	}
+
+	/** The password sign-in form posted without scripts: the page's status and headers. */
+	async signInResponse(email: string, password = demoPassword) {
+		return this.post('/signin?/password', { email, password });
 	}
 
 	async me() {
@@ -117,9 +153,10 @@ async function apiCall(
 	method: string,
 	path: string,
 	body: unknown,
-	headers: Record<string, string>
+	headers: Record<string, string>,
+	base = baseUrl
 ) {
-	return fetch(new URL(`/api/v1${path}`, baseUrl), {
+	return fetch(new URL(`/api/v1${path}`, base), {
 		method,
 		headers: body === undefined ? headers : { ...headers, 'content-type': 'application/json' },
 		body: body === undefined ? undefined : JSON.stringify(body)

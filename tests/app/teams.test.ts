@@ -163,19 +163,33 @@ describe('team rules', () => {
 		expect(remove.status).toBe(409);
 	});
 
-	it('enforces a role change at once', async () => {
+	it('invites an address with an account too (202, never a silent add); it joins on accepting', async () => {
 		const slug = `roles-${unique()}`;
 		await clients.outsider.api('POST', '/teams', { name: 'Roles shop', slug });
-		const added = await clients.outsider.api('POST', `/teams/${slug}/members`, {
+		const invited = await clients.outsider.api('POST', `/teams/${slug}/members`, {
 			email: 'quality@example.test',
 			role: 'quality'
 		});
-		expect(added.status).toBe(201);
-		const { member } = await added.json();
+		expect(invited.status).toBe(202);
+		expect(await invited.json()).toMatchObject({ email: 'quality@example.test', role: 'quality' });
+		// Not a member before accepting: the team does not even show.
+		expect((await clients.quality.api('GET', `/teams/${slug}/activity`)).status).toBe(404);
+		const mail = await waitForMail('quality@example.test', /invited you to Roles shop/);
+		const accepted = await clients.quality.submit(`${linkIn(mail, '/invitations/')}?/accept`, {});
+		expect(accepted).toMatchObject({ type: 'redirect', location: `/teams/${slug}` });
+
+		const members = (await (
+			await clients.outsider.api('GET', `/teams/${slug}/members`)
+		).json()) as {
+			userId: string;
+			email: string;
+		}[];
+		const member = members.find((m) => m.email === 'quality@example.test')!;
 		expect((await clients.quality.api('GET', `/teams/${slug}/activity`)).status).toBe(403);
 		await clients.outsider.api('PATCH', `/teams/${slug}/members/${member.userId}`, {
 			role: 'checker'
 		});
+		// A role change holds at once.
 		expect((await clients.quality.api('GET', `/teams/${slug}/activity`)).status).toBe(200);
 	});
 

@@ -2,8 +2,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Database } from '../../src/lib/server/db/connect';
 import {
 	attemptLimits,
-	isRateLimited,
-	recordAttempt
+	attemptMemoryMs,
+	attemptWait,
+	delayAfter,
+	recordAttempt,
+	spendAttempt
 } from '../../src/lib/server/db/queries/attempts';
 import { consumeUserToken, issueUserToken } from '../../src/lib/server/db/queries/tokens';
 import { createUser } from '../../src/lib/server/db/queries/users';
@@ -54,15 +57,53 @@ describe('e-mailed tokens', () => {
 });
 
 describe('attempt limits', () => {
-	it('stop the 11th failure on an account within the window and let a later attempt through', async () => {
+	const limit = attemptLimits['sign-in'];
+	const at = (start: Date, ms: number) => new Date(start.getTime() + ms);
+
+	it('let the free failures through, then make each further one wait twice as long', async () => {
 		const keys = ['account:limit@example.test', 'address:10.0.0.1'];
 		const start = new Date('2026-06-01T10:00:00Z');
-		for (let i = 0; i < attemptLimits['sign-in'].account; i++) {
-			expect(await isRateLimited(database.db, 'sign-in', keys, start)).toBe(false);
+		for (let i = 0; i < limit.free.account; i++) {
+			expect(await attemptWait(database.db, 'sign-in', keys, start)).toBe(0);
 			await recordAttempt(database.db, 'sign-in', keys, start);
 		}
-		expect(await isRateLimited(database.db, 'sign-in', keys, start)).toBe(true);
-		const after = new Date(start.getTime() + attemptLimits['sign-in'].windowMs + 1000);
-		expect(await isRateLimited(database.db, 'sign-in', keys, after)).toBe(false);
+		// 1 s, then 2 s, then 4 s after the failure before (baseMs 1000, doubling).
+		let last = start;
+		for (const delay of [1000, 2000, 4000]) {
+			expect(await attemptWait(database.db, 'sign-in', keys, last)).toBe(delay / 1000);
+			expect(await attemptWait(database.db, 'sign-in', keys, at(last, delay - 1))).toBe(1);
+			last = at(last, delay);
+			expect(await attemptWait(database.db, 'sign-in', keys, last)).toBe(0);
+			await recordAttempt(database.db, 'sign-in', keys, last);
+		}
+		// Never longer than the cap, and forgotten a day later.
+		expect(delayAfter(limit, 1000, limit.free.account)).toBe(limit.maxMs);
+		expect(await attemptWait(database.db, 'sign-in', keys, at(last, attemptMemoryMs))).toBe(0);
+	});
+
+	it('count an address apart from the accounts it tries', async () => {
+		const start = new Date('2026-06-02T10:00:00Z');
+		for (let i = 0; i < limit.free.address; i++) {
+			const keys = [`account:spray-${i}@example.test`, 'address:10.0.0.2'];
+			await recordAttempt(database.db, 'sign-in', keys, start);
+		}
+		const fresh = ['account:untouched@example.test', 'address:10.0.0.2'];
+		expect(await attemptWait(database.db, 'sign-in', fresh, start)).toBe(1);
+		const elsewhere = ['account:untouched@example.test', 'address:10.0.0.3'];
+		expect(await attemptWait(database.db, 'sign-in', elsewhere, start)).toBe(0);
+	});
+
+	it('spend one attempt per request that sends mail, and none while waiting', async () => {
+		const keys = ['account:mailbox@example.test', 'address:10.0.0.4'];
+		const start = new Date('2026-06-03T10:00:00Z');
+		const mailLimit = attemptLimits.link;
+		for (let i = 0; i < mailLimit.free.account; i++) {
+			expect(await spendAttempt(database.db, 'link', keys, start)).toBe(0);
+		}
+		expect(await spendAttempt(database.db, 'link', keys, start)).toBe(mailLimit.baseMs / 1000);
+		expect(await spendAttempt(database.db, 'link', keys, at(start, 1000))).toBe(
+			mailLimit.baseMs / 1000 - 1
+		);
+		expect(await spendAttempt(database.db, 'link', keys, at(start, mailLimit.baseMs))).toBe(0);
 	});
 });

@@ -17,6 +17,14 @@ export const teamInput = z.object({
 });
 
 export const memberInput = z.object({ email, role });
+
+/** An invitation as the API answers it (POST …/members and …/invitations). */
+export const invitationResponse = z.object({
+	id: z.uuid(),
+	email: z.string(),
+	role,
+	expiresAt: z.iso.datetime()
+});
 export const roleInput = z.object({ role });
 
 export const teamSettingsInput = z.object({

@@ -18,9 +18,10 @@ export async function signUp(
 	input: { name: string; email: string; password: string },
 	origin: string
 ) {
+	// The hash first, whatever the address: a known one must not answer sooner than a new one.
+	const passwordHash = await hashPassword(input.password);
 	const existing = await getUserByEmail(db, input.email);
 	if (existing?.emailVerified) return;
-	const passwordHash = await hashPassword(input.password);
 	const user = existing
 		? await replacePendingSignUp(db, existing.id, { name: input.name, passwordHash })
 		: await createUser(db, { name: input.name, email: input.email, passwordHash });

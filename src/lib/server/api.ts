@@ -53,6 +53,9 @@ function jsonError(
 	headers.set('content-type', 'application/json');
 	headers.delete('content-length');
 	const { message, code, ...rest } = detail ?? {};
+	// A refusal that says when to come back (429 rate_limited) says it in the header too.
+	const retryAfter = rest.retryAfter ?? (already?.error as { retryAfter?: unknown })?.retryAfter;
+	if (typeof retryAfter === 'number') headers.set('retry-after', String(retryAfter));
 	const body = already ?? {
 		error: {
 			code: code ?? codeForStatus[response.status] ?? 'error',

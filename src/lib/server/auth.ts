@@ -12,9 +12,9 @@ import type { RequestEvent } from '@sveltejs/kit';
 import { config as settings } from './config';
 import { startDatabase } from './db';
 import { accounts, users, verificationTokens } from './db/schema';
-import { clearAttempts, isRateLimited, recordAttempt } from './db/queries/attempts';
+import { attemptWait, clearAttempts, recordAttempt, spendAttempt } from './db/queries/attempts';
 import type { Actor } from './db/queries/activity';
-import { getUserByEmail, getUserById, proveEmail } from './db/queries/users';
+import { getUserByEmail, getUserById, normaliseEmail, proveEmail } from './db/queries/users';
 import { queueMail } from './mail/outbox';
 import { signInLinkMail } from './mail/templates';
 import { nudgeOutbox } from './mail/worker';
@@ -23,15 +23,30 @@ import { signInInput } from '$lib/schemas/auth';
 
 export class TooManyAttempts extends CredentialsSignin {
 	code = 'rate_limited';
+	constructor(readonly retryAfter: number) {
+		super();
+	}
 }
 export class EmailNotVerified extends CredentialsSignin {
 	code = 'unverified';
 }
 
 export const attemptKeys = (email: string, address: string) => [
-	`account:${email}`,
+	`account:${normaliseEmail(email)}`,
 	`address:${address}`
 ];
+
+/** An e-mailed sign-in link counts against its address and the asking client's: seconds to wait. */
+export async function spendSignInLink(email: string, address: string) {
+	const { db } = await startDatabase();
+	return spendAttempt(db, 'link', attemptKeys(email, address));
+}
+
+/** Seconds before the next password sign-in on this account from this address may be tried. */
+export async function signInWait(email: string, address: string) {
+	const { db } = await startDatabase();
+	return attemptWait(db, 'sign-in', attemptKeys(email, address));
+}
 
 function clientAddress() {
 	try {
@@ -74,7 +89,9 @@ async function buildConfig(): Promise<AuthConfig> {
 					if (!parsed.success) return null;
 					const { email, password } = parsed.data;
 					const keys = attemptKeys(email, clientAddress());
-					if (await isRateLimited(db, 'sign-in', keys)) throw new TooManyAttempts();
+					// During the wait the password is not even compared: a guess then tells nothing.
+					const wait = await attemptWait(db, 'sign-in', keys);
+					if (wait > 0) throw new TooManyAttempts(wait);
 					const user = await getUserByEmail(db, email);
 					if (!(await verifyPassword(password, user?.passwordHash))) {
 						await recordAttempt(db, 'sign-in', keys);
@@ -132,7 +149,9 @@ async function buildConfig(): Promise<AuthConfig> {
 export const { handle: authHandle } = SvelteKitAuth(async () => buildConfig());
 
 export type SignInOutcome =
-	{ ok: true } | { ok: false; code: 'invalid' | 'rate_limited' | 'unverified' };
+	| { ok: true }
+	| { ok: false; code: 'invalid' | 'unverified' }
+	| { ok: false; code: 'rate_limited'; retryAfter: number };
 
 /** Runs an Auth.js sign-in for our own form actions, turning its errors into outcomes. */
 export async function signInWith(
@@ -145,8 +164,8 @@ export async function signInWith(
 	const url = new URL(`/auth/${action}/${provider}`, event.url);
 	const headers = new Headers(event.request.headers);
 	headers.set('Content-Type', 'application/x-www-form-urlencoded');
-	// Our form actions already passed SvelteKit's same-origin check; Auth.js's own endpoints
-	// keep their CSRF token check.
+	// Our form actions already passed the same-origin check (hooks.server.ts), which also
+	// stands in for Auth.js's CSRF token on its own routes (@auth/sveltekit turns that off).
 	const body = new URLSearchParams({ ...fields, callbackUrl: '/' });
 	try {
 		const response = await Auth(new Request(url, { method: 'POST', headers, body }), {
@@ -160,8 +179,10 @@ export async function signInWith(
 		if (response.redirect?.includes('error=')) return { ok: false, code: 'invalid' };
 		return { ok: true };
 	} catch (err) {
-		const code = (err as { code?: string }).code;
-		if (code === 'rate_limited' || code === 'unverified') return { ok: false, code };
+		if (err instanceof TooManyAttempts) {
+			return { ok: false, code: 'rate_limited', retryAfter: err.retryAfter };
+		}
+		if ((err as { code?: string }).code === 'unverified') return { ok: false, code: 'unverified' };
 		if (err instanceof CredentialsSignin || (err as Error).name === 'CredentialsSignin') {
 			return { ok: false, code: 'invalid' };
 		}

@@ -1,4 +1,4 @@
-import { fail } from '@sveltejs/kit';
+import { fail, type RequestEvent } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { FieldErrors } from '$lib/forms';
 
@@ -36,4 +36,21 @@ export async function parseForm<S extends z.ZodType>(
 		};
 	}
 	return { ok: true as const, data: parsed.data as z.infer<S>, values };
+}
+
+/** How long to wait, in words: "Try again in 40 seconds." */
+export function tryAgainIn(seconds: number) {
+	const minutes = Math.ceil(seconds / 60);
+	return seconds < 90 ? `Try again in ${seconds} seconds.` : `Try again in ${minutes} minutes.`;
+}
+
+/** A form refused by a rate limit: 429, Retry-After, and the values to show again. */
+export function tooManyAttempts(
+	event: Pick<RequestEvent, 'setHeaders'>,
+	retryAfter: number,
+	values: Record<string, string> = {},
+	what = 'Too many attempts.'
+) {
+	event.setHeaders({ 'retry-after': String(retryAfter) });
+	return fail(429, { values, message: `${what} ${tryAgainIn(retryAfter)}` });
 }

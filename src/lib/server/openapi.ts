@@ -7,6 +7,7 @@ import { importDescription } from '$lib/schemas/feature-import';
 import {
 	activityQuery,
 	apiTokenInput,
+	invitationResponse,
 	memberInput,
 	roleInput,
 	teamInput
@@ -51,9 +52,11 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 	'/teams/{team}/members': {
 		get: { summary: 'Members and their roles', success: 200 },
 		post: {
-			summary: 'Add someone with an account (201) or invite them by e-mail (202)',
+			summary:
+				"Invite someone by e-mail: always an invitation they accept (202 with the invitation), whether the address has an account or not; 429 rate_limited with Retry-After past the inviter's limit",
 			body: memberInput,
-			success: 201
+			response: invitationResponse,
+			success: 202
 		}
 	},
 	'/teams/{team}/members/{userId}': {
@@ -66,7 +69,12 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 	},
 	'/teams/{team}/invitations': {
 		get: { summary: 'Open invitations', success: 200 },
-		post: { summary: 'Invite by e-mail', body: memberInput, success: 201 }
+		post: {
+			summary: 'Invite by e-mail (as POST …/members, answered 201)',
+			body: memberInput,
+			response: invitationResponse,
+			success: 201
+		}
 	},
 	'/teams/{team}/invitations/{id}': { delete: { summary: 'Withdraw an invitation', success: 204 } },
 	'/teams/{team}/activity': {

@@ -1,44 +1,38 @@
 import { roleLabels } from './capabilities';
 import type { Db } from './db/connect';
 import type { Role, TeamRow } from './db/schema';
+import { spendAttempt } from './db/queries/attempts';
 import { createInvitation } from './db/queries/invitations';
-import { addMember } from './db/queries/teams';
-import { getUserByEmail } from './db/queries/users';
 import { queueMail } from './mail/outbox';
 import { invitationMail } from './mail/templates';
 import { nudgeOutbox } from './mail/worker';
 import type { Actor } from './db/queries/activity';
+import { tryAgainIn } from './forms';
+
+export type InviteOutcome =
+	| {
+			ok: true;
+			invitation: { id: string; email: string; role: Role; expiresAt: Date };
+	  }
+	| { ok: false; status: 429; code: 'rate_limited'; message: string; retryAfter: number };
 
 /**
- * Adds a person to a team: someone who already has an account joins at once; anyone else
- * gets an invitation by e-mail, which signs them up when they accept it.
+ * Invites someone by e-mail: always an invitation they accept, also when the address has an
+ * account (adding it at once would tell the inviter which addresses have accounts, and put
+ * people in teams they never agreed to join). Each one counts against the inviter's limit.
  */
-export async function addOrInvite(
-	db: Db,
-	actor: Actor,
-	team: TeamRow,
-	input: { email: string; role: Role },
-	origin: string
-) {
-	const existing = await getUserByEmail(db, input.email);
-	if (existing?.emailVerified) {
-		const { membership, created } = await addMember(db, actor, team.id, existing, input.role);
-		return {
-			kind: 'member' as const,
-			created,
-			member: { userId: existing.id, role: membership.role }
-		};
-	}
-	return { kind: 'invitation' as const, invitation: await invite(db, actor, team, input, origin) };
-}
-
 export async function invite(
 	db: Db,
 	actor: Actor,
 	team: TeamRow,
 	input: { email: string; role: Role },
 	origin: string
-) {
+): Promise<InviteOutcome> {
+	const wait = await spendAttempt(db, 'invite', [`user:${actor.id}`]);
+	if (wait > 0) {
+		const message = `Too many invitations sent. ${tryAgainIn(wait)}`;
+		return { ok: false, status: 429, code: 'rate_limited', message, retryAfter: wait };
+	}
 	const { invitation, token } = await createInvitation(db, actor, team.id, input);
 	await queueMail(
 		db,
@@ -52,9 +46,12 @@ export async function invite(
 	);
 	nudgeOutbox();
 	return {
-		id: invitation.id,
-		email: invitation.email,
-		role: invitation.role,
-		expiresAt: invitation.expiresAt
+		ok: true,
+		invitation: {
+			id: invitation.id,
+			email: invitation.email,
+			role: invitation.role,
+			expiresAt: invitation.expiresAt
+		}
 	};
 }

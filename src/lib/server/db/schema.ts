@@ -83,12 +83,15 @@ export const userTokens = pgTable(
 	(table) => [index('user_tokens_user_idx').on(table.userId)]
 );
 
-/** Failed sign-in and reset requests, per account and per address, shared by every instance. */
+/**
+ * Failed sign-ins and every request that sends mail (sign-up, reset, sign-in link, invitation),
+ * per account and per address, shared by every instance (`db/queries/attempts.ts`).
+ */
 export const authAttempts = pgTable(
 	'auth_attempts',
 	{
 		id: bigserial('id', { mode: 'number' }).primaryKey(),
-		scope: text('scope', { enum: ['sign-in', 'reset'] }).notNull(),
+		scope: text('scope', { enum: ['sign-in', 'reset', 'link', 'sign-up', 'invite'] }).notNull(),
 		key: text('key').notNull(),
 		at: timestamp('at', { withTimezone: true }).notNull().defaultNow()
 	},

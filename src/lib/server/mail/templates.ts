@@ -54,7 +54,7 @@ export const signInLinkMail = (to: string, url: string) =>
 		'Use this link to sign in to Checkplate.',
 		'Sign in',
 		url,
-		'The link works once and for 24 hours. If you did not ask for it, ignore this message.'
+		'The link works once and for 15 minutes. If you did not ask for it, ignore this message.'
 	);
 
 export const invitationMail = (

@@ -1,7 +1,7 @@
 import { redirect } from '@sveltejs/kit';
 import { changePasswordInput } from '$lib/schemas/auth';
 import { attemptKeys, signInWith, signOutHere } from '$lib/server/auth';
-import { isRateLimited, recordAttempt } from '$lib/server/db/queries/attempts';
+import { attemptWait, recordAttempt } from '$lib/server/db/queries/attempts';
 import { db } from '$lib/server/db';
 import {
 	endAllSessions,
@@ -9,7 +9,7 @@ import {
 	getUserById,
 	setPassword
 } from '$lib/server/db/queries/users';
-import { parseForm, refuseForm } from '$lib/server/forms';
+import { parseForm, refuseForm, tryAgainIn } from '$lib/server/forms';
 import { requireUser } from '$lib/server/guards';
 import { hashPassword, verifyPassword } from '$lib/server/passwords';
 import type { Actions, PageServerLoad } from './$types';
@@ -26,12 +26,10 @@ export const actions: Actions = {
 		if (!form.ok) return form.failure;
 		// A wrong current password is a sign-in guess: it counts against the same limit.
 		const keys = attemptKeys(user.email, event.getClientAddress());
-		if (await isRateLimited(db, 'sign-in', keys)) {
-			return refuseForm(
-				429,
-				{ currentPassword: ['Too many attempts. Wait a few minutes, then try again.'] },
-				{}
-			);
+		const wait = await attemptWait(db, 'sign-in', keys);
+		if (wait > 0) {
+			event.setHeaders({ 'retry-after': String(wait) });
+			return refuseForm(429, { currentPassword: [`Too many attempts. ${tryAgainIn(wait)}`] }, {});
 		}
 		const row = await getUserById(db, user.id);
 		if (!(await verifyPassword(form.data.currentPassword, row?.passwordHash))) {

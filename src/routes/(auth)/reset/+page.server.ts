@@ -3,8 +3,8 @@ import { resetRequestInput } from '$lib/schemas/auth';
 import { requestPasswordReset } from '$lib/server/accounts';
 import { attemptKeys } from '$lib/server/auth';
 import { db } from '$lib/server/db';
-import { isRateLimited, recordAttempt } from '$lib/server/db/queries/attempts';
-import { parseForm } from '$lib/server/forms';
+import { spendAttempt } from '$lib/server/db/queries/attempts';
+import { parseForm, tooManyAttempts } from '$lib/server/forms';
 import { nudgeOutbox } from '$lib/server/mail/worker';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -15,12 +15,12 @@ export const actions: Actions = {
 		const form = await parseForm(event.request, resetRequestInput, ['email']);
 		if (!form.ok) return form.failure;
 		const keys = attemptKeys(form.data.email, event.getClientAddress());
-		// Over the limit the page answers as usual and simply sends nothing.
-		if (!(await isRateLimited(db, 'reset', keys))) {
-			await recordAttempt(db, 'reset', keys);
-			await requestPasswordReset(db, form.data.email, event.url.origin);
-			nudgeOutbox();
-		}
+		// Counted per address asked for whether it has an account or not: the answer tells nothing.
+		const wait = await spendAttempt(db, 'reset', keys);
+		if (wait > 0)
+			return tooManyAttempts(event, wait, form.values, 'Too many reset links asked for.');
+		await requestPasswordReset(db, form.data.email, event.url.origin);
+		nudgeOutbox();
 		redirect(303, '/reset?sent=1');
 	}
 };

@@ -10,9 +10,9 @@ import {
 	removeMember,
 	updateTeamSettings
 } from '$lib/server/db/queries/teams';
-import { parseForm } from '$lib/server/forms';
+import { parseForm, tooManyAttempts } from '$lib/server/forms';
 import { requireMember } from '$lib/server/guards';
-import { addOrInvite } from '$lib/server/teams';
+import { invite } from '$lib/server/teams';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params }) => {
@@ -36,17 +36,14 @@ async function guarded<T>(work: () => Promise<T>) {
 }
 
 export const actions: Actions = {
-	invite: async ({ params, request, url }) => {
-		const { user, team } = await requireMember(params.team, 'manageTeam');
-		const form = await parseForm(request, memberInput, ['email', 'role']);
+	invite: async (event) => {
+		const { user, team } = await requireMember(event.params.team, 'manageTeam');
+		const form = await parseForm(event.request, memberInput, ['email', 'role']);
 		if (!form.ok) return form.failure;
-		const result = await addOrInvite(db, user, team, form.data, url.origin);
-		return {
-			notice:
-				result.kind === 'member'
-					? `${form.data.email} has an account and is now a member.`
-					: `Invitation sent to ${form.data.email}.`
-		};
+		const outcome = await invite(db, user, team, form.data, event.url.origin);
+		if (!outcome.ok)
+			return tooManyAttempts(event, outcome.retryAfter, form.values, 'Too many invitations sent.');
+		return { notice: `Invitation sent to ${form.data.email}.` };
 	},
 	role: async ({ params, request }) => {
 		const { user, team } = await requireMember(params.team, 'manageTeam');

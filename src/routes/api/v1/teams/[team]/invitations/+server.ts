@@ -1,5 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { memberInput } from '$lib/schemas/teams';
+import { refuse } from '$lib/server/api';
 import { readJson } from '$lib/server/api-input';
 import { db } from '$lib/server/db';
 import { listOpenInvitations } from '$lib/server/db/queries/invitations';
@@ -15,5 +16,7 @@ export const GET: RequestHandler = async ({ params }) => {
 export const POST: RequestHandler = async ({ params, request, url }) => {
 	const { user, team } = await requireMember(params.team, 'manageTeam');
 	const input = await readJson(request, memberInput);
-	return json(await invite(db, user, team, input, url.origin), { status: 201 });
+	const outcome = await invite(db, user, team, input, url.origin);
+	if (!outcome.ok) refuse(outcome);
+	return json(outcome.invitation, { status: 201 });
 };
