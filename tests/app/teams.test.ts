@@ -218,6 +218,41 @@ describe('team rules', () => {
 		expect(again).toMatchObject({ type: 'failure', status: 410 });
 	});
 
+	it('an invitation accepted with an account of another address waits for an admin', async () => {
+		const invitedAddress = `intended-${unique()}@example.test`;
+		const invited = await clients.admin.api('POST', '/teams/kestrel/members', {
+			email: invitedAddress,
+			role: 'quality'
+		});
+		expect(invited.status).toBe(202);
+		const { id } = await invited.json();
+		const link = linkIn(await waitForMail(invitedAddress, /invited you to/), '/invitations/');
+
+		// Someone else who got hold of the link, signed in with their own account.
+		const other = new Client();
+		const { email: otherAddress } = await newVerifiedUser(other, 'Link Forwarded');
+		const asked = await other.submit(`${link}?/accept`, {});
+		expect(asked).toMatchObject({ type: 'success' });
+		expect(await (await other.get(link)).text()).toContain('has been asked to let you join');
+		expect((await other.api('GET', '/teams/kestrel/members')).status).toBe(404);
+
+		const open = (await (await clients.admin.api('GET', '/teams/kestrel/invitations')).json()) as {
+			id: string;
+			waitingFor: { email: string } | null;
+		}[];
+		expect(open.find((i) => i.id === id)?.waitingFor).toMatchObject({ email: otherAddress });
+		const page = await (await clients.admin.get('/teams/kestrel/members')).text();
+		expect(page).toContain(`${otherAddress} asks to accept it with that account`);
+		expect(await clients.admin.submit('/teams/kestrel/members?/approve', { id })).toMatchObject({
+			type: 'success'
+		});
+		expect((await other.api('GET', '/teams/kestrel/members')).status).toBe(200);
+		// Used: the link itself no longer lets anyone in.
+		expect(
+			await new Client().submit(`${link}?/join`, { name: 'Late', password: 'a long enough phrase' })
+		).toMatchObject({ status: 410 });
+	});
+
 	it('keeps cross-site protection for cookie sessions, not for Bearer clients', async () => {
 		const response = await fetch(new URL('/teams?/create', (await import('./client')).baseUrl), {
 			method: 'POST',

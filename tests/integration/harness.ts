@@ -2,8 +2,9 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { randomBytes } from 'node:crypto';
+import { sql } from 'drizzle-orm';
 import pg from 'pg';
-import { openPglite, openPostgres, type Database } from '../../src/lib/server/db/connect';
+import { openPglite, openPostgres, type Database, type Db } from '../../src/lib/server/db/connect';
 import { startS3Fake } from '../../fakes/s3.js';
 import { startSmtpFake } from '../../fakes/smtp.js';
 
@@ -76,5 +77,24 @@ export async function startFakes() {
 			await Promise.allSettled([s3.close(), smtp.close()]);
 			temp.remove();
 		}
+	};
+}
+
+/**
+ * Makes every `op` on `table` fail, as a fault part-way through a multi-table write would (a
+ * trigger raising an error); returns the undo.
+ */
+export async function breakWrites(db: Db, table: string, op: 'INSERT' | 'UPDATE' = 'INSERT') {
+	const name = `test_fault_${table}_${op.toLowerCase()}`;
+	await db.execute(
+		sql.raw(`CREATE OR REPLACE FUNCTION test_fault() RETURNS trigger AS $$
+		BEGIN RAISE EXCEPTION 'injected fault'; END; $$ LANGUAGE plpgsql`)
+	);
+	await db.execute(
+		sql.raw(`CREATE TRIGGER ${name} BEFORE ${op} ON "${table}"
+		FOR EACH ROW EXECUTE FUNCTION test_fault()`)
+	);
+	return async () => {
+		await db.execute(sql.raw(`DROP TRIGGER ${name} ON "${table}"`));
 	};
 }

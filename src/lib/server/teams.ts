@@ -33,17 +33,21 @@ export async function invite(
 		const message = `Too many invitations sent. ${tryAgainIn(wait)}`;
 		return { ok: false, status: 429, code: 'rate_limited', message, retryAfter: wait };
 	}
-	const { invitation, token } = await createInvitation(db, actor, team.id, input);
-	await queueMail(
-		db,
-		invitationMail(
-			invitation.email,
-			`${origin}/invitations/${token}`,
-			team.name,
-			actor.name ?? actor.email,
-			roleLabels[input.role]
-		)
-	);
+	// The invitation and its mail together: no invitation nobody was told of, no mail for none.
+	const invitation = await db.transaction(async (tx) => {
+		const { invitation, token } = await createInvitation(tx, actor, team.id, input);
+		await queueMail(
+			tx,
+			invitationMail(
+				invitation.email,
+				`${origin}/invitations/${token}`,
+				team.name,
+				actor.name ?? actor.email,
+				roleLabels[input.role]
+			)
+		);
+		return invitation;
+	});
 	nudgeOutbox();
 	return {
 		ok: true,

@@ -167,6 +167,9 @@ export const invitations = pgTable(
 		acceptedAt: timestamp('accepted_at', { withTimezone: true }),
 		acceptedBy: uuid('accepted_by').references(() => users.id, { onDelete: 'set null' }),
 		revokedAt: timestamp('revoked_at', { withTimezone: true }),
+		// Someone signed in with another address asked to accept: an admin approves or withdraws.
+		requestedBy: uuid('requested_by').references(() => users.id, { onDelete: 'set null' }),
+		requestedAt: timestamp('requested_at', { withTimezone: true }),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 	},
 	(table) => [index('invitations_team_idx').on(table.teamId)]

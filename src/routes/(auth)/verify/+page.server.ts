@@ -1,7 +1,7 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { db } from '$lib/server/db';
-import { consumeUserToken, peekUserToken } from '$lib/server/db/queries/tokens';
-import { proveEmail } from '$lib/server/db/queries/users';
+import { confirmAddress } from '$lib/server/accounts';
+import { peekUserToken } from '$lib/server/db/queries/tokens';
 import type { Actions, PageServerLoad } from './$types';
 
 /**
@@ -18,11 +18,8 @@ export const load: PageServerLoad = async ({ url }) => {
 export const actions: Actions = {
 	default: async ({ request }) => {
 		const token = (await request.formData()).get('token');
-		const result =
-			typeof token === 'string' && token ? await consumeUserToken(db, token, 'verify-email') : null;
+		const result = typeof token === 'string' && token ? await confirmAddress(db, token) : null;
 		if (!result?.ok) return fail(400, { reason: result?.reason ?? 'invalid' });
-		// The newest sign-up's password stays (older links ended); sessions and tokens end.
-		await proveEmail(db, result.userId);
 		redirect(303, '/signin?verified=1');
 	}
 };

@@ -1,6 +1,7 @@
-import { and, asc, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, isNull, sql } from 'drizzle-orm';
+import { can } from '../../capabilities';
 import type { Db } from '../connect';
-import { memberships, teams, users, type Role } from '../schema';
+import { invitations, memberships, teams, users, type Role } from '../schema';
 import { recordActivity, type Actor } from './activity';
 
 export async function getTeamBySlug(db: Db, slug: string) {
@@ -106,6 +107,36 @@ async function adminCount(db: Db, teamId: string) {
 	return row.count;
 }
 
+/**
+ * Someone who no longer manages the team (removed, or a role without `manageTeam`) no longer
+ * brings anyone in: the invitations they sent that are still open are withdrawn.
+ */
+async function revokeInvitationsBy(db: Db, actor: Actor, teamId: string, inviterId: string) {
+	const revoked = await db
+		.update(invitations)
+		.set({ revokedAt: new Date() })
+		.where(
+			and(
+				eq(invitations.teamId, teamId),
+				eq(invitations.invitedBy, inviterId),
+				isNull(invitations.acceptedAt),
+				isNull(invitations.revokedAt)
+			)
+		)
+		.returning({ id: invitations.id, email: invitations.email, role: invitations.role });
+	for (const row of revoked) {
+		await recordActivity(db, {
+			teamId,
+			actor,
+			entity: 'invitation',
+			entityId: row.id,
+			action: 'revoke',
+			summary: `withdrew the invitation to ${row.email}: its sender no longer manages the team`,
+			before: { email: row.email, role: row.role }
+		});
+	}
+}
+
 export async function changeRole(db: Db, actor: Actor, teamId: string, userId: string, role: Role) {
 	return db.transaction(async (tx) => {
 		// Lock the team row so two demotions cannot both pass the last-admin check.
@@ -129,6 +160,7 @@ export async function changeRole(db: Db, actor: Actor, teamId: string, userId: s
 			before: { role: current.role },
 			after: { role }
 		});
+		if (!can(role, 'manageTeam')) await revokeInvitationsBy(tx, actor, teamId, userId);
 		return updated;
 	});
 }
@@ -151,6 +183,7 @@ export async function removeMember(db: Db, actor: Actor, teamId: string, userId:
 			summary: `removed a ${current.role} from the team`,
 			before: { userId, role: current.role }
 		});
+		await revokeInvitationsBy(tx, actor, teamId, userId);
 		return true;
 	});
 }

@@ -1,8 +1,7 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { resetInput } from '$lib/schemas/auth';
 import { db } from '$lib/server/db';
-import { consumeUserToken } from '$lib/server/db/queries/tokens';
-import { proveEmail } from '$lib/server/db/queries/users';
+import { resetPassword } from '$lib/server/accounts';
 import { parseForm } from '$lib/server/forms';
 import { hashPassword } from '$lib/server/passwords';
 import type { Actions, PageServerLoad } from './$types';
@@ -15,7 +14,10 @@ export const actions: Actions = {
 	default: async ({ request }) => {
 		const form = await parseForm(request, resetInput, ['token']);
 		if (!form.ok) return form.failure;
-		const used = await consumeUserToken(db, form.data.token, 'reset-password');
+		// The link proves the address: the new password replaces any other, and every session and
+		// API token from before ends (one transaction with using the link).
+		const passwordHash = await hashPassword(form.data.password);
+		const used = await resetPassword(db, form.data.token, passwordHash);
 		if (!used.ok) {
 			return fail(400, {
 				values: form.values,
@@ -25,9 +27,6 @@ export const actions: Actions = {
 						: 'That link is not valid or was already used. Ask for a new one.'
 			});
 		}
-		// The link proves the address: the new password replaces any other, and every session and
-		// API token from before ends.
-		await proveEmail(db, used.userId, { passwordHash: await hashPassword(form.data.password) });
 		redirect(303, '/signin?reset=1');
 	}
 };

@@ -2,7 +2,11 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { memberInput, roleInput, teamSettingsInput } from '$lib/schemas/teams';
 import { db } from '$lib/server/db';
-import { listOpenInvitations, revokeInvitation } from '$lib/server/db/queries/invitations';
+import {
+	approveInvitation,
+	listOpenInvitations,
+	revokeInvitation
+} from '$lib/server/db/queries/invitations';
 import {
 	changeRole,
 	LastAdmin,
@@ -69,6 +73,15 @@ export const actions: Actions = {
 		if (!form.ok) return form.failure;
 		await revokeInvitation(db, user, team.id, form.data.id);
 		return { notice: 'Invitation withdrawn.' };
+	},
+	/** Lets the account that asked join on an invitation sent to another address. */
+	approve: async ({ params, request }) => {
+		const { user, team } = await requireMember(params.team, 'manageTeam');
+		const form = await parseForm(request, z.object({ id: z.uuid() }));
+		if (!form.ok) return form.failure;
+		const approved = await approveInvitation(db, user, team.id, form.data.id);
+		if (!approved) return fail(410, { message: 'That invitation is no longer open.' });
+		return { notice: 'Approved: they are a member now.' };
 	},
 	settings: async ({ params, request }) => {
 		const { user, team } = await requireMember(params.team, 'manageTeam');
