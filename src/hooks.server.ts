@@ -1,3 +1,4 @@
+import { join, resolve } from 'node:path';
 import { json, text, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { env } from '$env/dynamic/private';
@@ -13,7 +14,7 @@ import { bodyLimit } from '$lib/server/body-limit';
 import { config } from '$lib/server/config';
 import { db, startDatabase } from '$lib/server/db';
 import { userForApiToken } from '$lib/server/db/queries/api-tokens';
-import { demoPassword, demoPeople } from '$lib/server/demo/people';
+import { demoPassword, demoPeople, seedsDemo } from '$lib/server/demo/people';
 import { startOutboxWorker } from '$lib/server/mail/worker';
 import { preparePdfCheck } from '$lib/server/pdf';
 import { getStorage } from '$lib/server/services';
@@ -37,13 +38,17 @@ export const init: ServerInit = async () => {
 	logUnhandledRejections();
 	const database = await startDatabase();
 	await database.migrate();
-	if (env.SEED_DEMO !== '0') {
+	if (seedsDemo(env)) {
 		const password = demoPassword(config.dataDir, env.DEMO_PASSWORD);
 		// The seed brings the PDF generator and its fonts: load it only when seeding.
 		const { seedDemo } = await import('$lib/server/demo/seed');
 		await seedDemo(database.db, password, getStorage(), config.uploadTempDir);
+		// Where to read the password, never the password: logs travel further than a data dir.
+		const where = env.DEMO_PASSWORD
+			? 'the DEMO_PASSWORD setting'
+			: join(resolve(config.dataDir), 'demo-password');
 		console.log(
-			`[checkplate] demo users ${demoPeople.map((p) => p.email).join(', ')} — password: ${password}`
+			`[checkplate] demo users ${demoPeople.map((p) => p.email).join(', ')} — password in ${where}`
 		);
 	}
 	startOutboxWorker();

@@ -1,4 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
+import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { findPostgresBin, startPostgres } from '../../scripts/postgres.js';
 import { demoPassword } from '../e2e/browser';
@@ -80,7 +81,7 @@ class Browser {
 			redirect: 'manual'
 		});
 		this.keep(response);
-		return (await response.json()) as { type: string };
+		return (await response.json()) as { type: string; status?: number };
 	}
 
 	async api(instance: Instance, method: string, path: string, body?: unknown) {
@@ -97,6 +98,8 @@ class Browser {
 
 const postgresBin = findPostgresBin();
 const stops: (() => unknown)[] = [];
+let shared: Record<string, string>;
+let serverUrl: string;
 let one: Instance;
 let two: Instance;
 
@@ -106,9 +109,11 @@ describe.skipIf(!postgresBin)('two app instances on one PostgreSQL server', () =
 		stops.push(server.stop);
 		const fakes = await startFakes();
 		stops.push(fakes.stop);
-		const shared = {
+		serverUrl = server.serverUrl;
+		shared = {
 			DATABASE_URL: server.url,
 			AUTH_SECRET: authSecret,
+			SEED_DEMO: '1',
 			DEMO_PASSWORD: demoPassword,
 			S3_ENDPOINT: fakes.storageSettings.endpoint,
 			S3_BUCKET: fakes.storageSettings.bucket,
@@ -142,6 +147,29 @@ describe.skipIf(!postgresBin)('two app instances on one PostgreSQL server', () =
 			'drafter@example.test drafter',
 			'quality@example.test quality'
 		]);
+	});
+
+	it('never writes the demo password to its logs, only where it is set', () => {
+		for (const instance of [one, two]) {
+			expect(instance.output()).not.toContain(demoPassword);
+		}
+		expect(one.output() + two.output()).toContain('password in the DEMO_PASSWORD setting');
+	});
+
+	it('seeds no demo users on a PostgreSQL server unless SEED_DEMO=1', async () => {
+		const admin = new pg.Client({ connectionString: `${serverUrl}/postgres` });
+		await admin.connect();
+		await admin.query('CREATE DATABASE without_demo');
+		await admin.end();
+		const plain = await startInstance({
+			...shared,
+			DATABASE_URL: `${serverUrl}/without_demo`,
+			SEED_DEMO: ''
+		});
+		stops.push(() => stopInstance(plain));
+		expect(plain.output()).not.toContain('demo users');
+		const refused = await new Browser().signIn(plain, 'admin@example.test');
+		expect(refused).toMatchObject({ type: 'failure', status: 401 });
 	});
 
 	it('recognises on one instance a sign-in made through the other', async () => {

@@ -106,7 +106,16 @@ export async function openPglite(dataDir: string | null): Promise<Database> {
 /** Any fixed number: the key of the advisory lock held while migrating. */
 const migrationLockKey = 7_302_114_551;
 
-export async function openPostgres(url: string): Promise<Database> {
+/**
+ * `url` is the runtime role's. With `migrationUrl` the migrations run as that role instead (the
+ * owner of the tables), so the runtime role needs only SELECT, INSERT, UPDATE and DELETE and
+ * cannot drop or alter a table or the activity trail's append-only trigger (README, "Running
+ * several instances").
+ */
+export async function openPostgres(
+	url: string,
+	options: { migrationUrl?: string } = {}
+): Promise<Database> {
 	const pool = new pg.Pool({ connectionString: url, max: 10 });
 	// An idle connection ended by the server (a restart, an administrator, a dropped test
 	// database) is reported here; without a listener node-postgres throws it and the process
@@ -119,7 +128,11 @@ export async function openPostgres(url: string): Promise<Database> {
 		// Instances starting together would each apply the same migrations and fail on the
 		// second CREATE: one migrates under the lock, the others wait and find nothing to do.
 		migrate: async (folder = defaultMigrations()) => {
-			const client = await pool.connect();
+			const owner = options.migrationUrl
+				? new pg.Client({ connectionString: options.migrationUrl })
+				: null;
+			if (owner) await owner.connect();
+			const client = owner ?? (await pool.connect());
 			try {
 				await client.query('SELECT pg_advisory_lock($1)', [migrationLockKey]);
 				try {
@@ -128,15 +141,20 @@ export async function openPostgres(url: string): Promise<Database> {
 					await client.query('SELECT pg_advisory_unlock($1)', [migrationLockKey]);
 				}
 			} finally {
-				client.release();
+				if (owner) await owner.end();
+				else (client as pg.PoolClient).release();
 			}
 		},
 		close: () => pool.end()
 	};
 }
 
-export function openDatabase(settings: { databaseUrl?: string; dataDir: string }) {
+export function openDatabase(settings: {
+	databaseUrl?: string;
+	migrationUrl?: string;
+	dataDir: string;
+}) {
 	return settings.databaseUrl
-		? openPostgres(settings.databaseUrl)
+		? openPostgres(settings.databaseUrl, { migrationUrl: settings.migrationUrl })
 		: openPglite(resolve(settings.dataDir));
 }

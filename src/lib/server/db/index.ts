@@ -12,6 +12,7 @@ export async function startDatabase(): Promise<Database> {
 	if (!database) {
 		database = await openDatabase({
 			databaseUrl: env.DATABASE_URL || undefined,
+			migrationUrl: env.MIGRATION_DATABASE_URL || undefined,
 			dataDir: env.DATA_DIR || './data'
 		});
 		const opened = database;

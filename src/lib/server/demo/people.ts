@@ -13,7 +13,16 @@ export const demoPeople = [
 	{ email: 'quality@example.test', name: 'Ken Halloran', role: 'quality' }
 ] as const;
 
-/** DEMO_PASSWORD, or one generated once and kept in the data dir so every start prints it. */
+/**
+ * Demo users only when asked for: a local start on the embedded database seeds them unless
+ * `SEED_DEMO=0`; a start on a PostgreSQL server (`DATABASE_URL`, a deployment) only with
+ * `SEED_DEMO=1`.
+ */
+export function seedsDemo(env: Record<string, string | undefined>) {
+	return env.DATABASE_URL ? env.SEED_DEMO === '1' : env.SEED_DEMO !== '0';
+}
+
+/** DEMO_PASSWORD, or one generated once and kept in the data dir (every start says where). */
 export function demoPassword(dataDir: string, configured: string | undefined) {
 	if (configured) return configured;
 	const file = join(dataDir, 'demo-password');
