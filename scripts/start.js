@@ -159,7 +159,8 @@ process.once('SIGTERM', () => void stop(0));
 process.once('SIGHUP', () => void stop(0));
 
 const url = env.ORIGIN;
-for (let i = 0; i < 300 && !stopping; i++) {
+// Migrating and seeding take a while on a busy machine: "running" only once it answers.
+for (let i = 0; i < 1700 && !stopping; i++) {
 	try {
 		const response = await fetch(`http://127.0.0.1:${port}/`);
 		if (response.ok) break;
