@@ -57,20 +57,10 @@ export class Client {
 
 	/** Submits a form action; returns SvelteKit's action result `{type, status, data|location}`. */
 	async submit(path: string, fields: Record<string, string>) {
-		const response = await fetch(new URL(path, this.base), {
-			method: 'POST',
-			headers: {
-				...this.extra,
-				cookie: this.cookieHeader(),
-				origin: new URL(this.base).origin,
-				'content-type': 'application/x-www-form-urlencoded',
-				accept: 'application/json',
-				'x-sveltekit-action': 'true'
-			},
-			body: new URLSearchParams(fields),
-			redirect: 'manual'
+		const response = await this.post(path, fields, {
+			accept: 'application/json',
+			'x-sveltekit-action': 'true'
 		});
-		this.keep(response);
 		const result = (await response.json()) as {
 			type: 'success' | 'failure' | 'redirect' | 'error';
 			status: number;
@@ -80,8 +70,15 @@ export class Client {
 		return result;
 	}
 
-	/** A form post as a browser without scripts sends it: the answer is the page (or a redirect). */
-	async post(path: string, fields: Record<string, string>) {
+	/**
+	 * A same-origin form post; by default as a browser without scripts sends it, the answer
+	 * being the page (or a redirect).
+	 */
+	async post(
+		path: string,
+		fields: Record<string, string>,
+		headers: Record<string, string> = { accept: 'text/html' }
+	) {
 		const response = await fetch(new URL(path, this.base), {
 			method: 'POST',
 			headers: {
@@ -89,7 +86,7 @@ export class Client {
 				cookie: this.cookieHeader(),
 				origin: new URL(this.base).origin,
 				'content-type': 'application/x-www-form-urlencoded',
-				accept: 'text/html'
+				...headers
 			},
 			body: new URLSearchParams(fields),
 			redirect: 'manual'

@@ -4,7 +4,7 @@ import { alias } from 'drizzle-orm/pg-core';
 import type { Db } from '../connect';
 import { invitations, teams, users, type Role } from '../schema';
 import { recordActivity, type Actor } from './activity';
-import { addMember } from './teams';
+import { addMember, withdrawInvitations } from './teams';
 import { getUserById, normaliseEmail } from './users';
 
 const hash = (token: string) => createHash('sha256').update(token).digest('hex');
@@ -204,29 +204,7 @@ export async function approveInvitation(
 }
 
 export async function revokeInvitation(db: Db, actor: Actor, teamId: string, id: string) {
-	return db.transaction(async (tx) => {
-		const [row] = await tx
-			.update(invitations)
-			.set({ revokedAt: new Date() })
-			.where(
-				and(
-					eq(invitations.id, id),
-					eq(invitations.teamId, teamId),
-					isNull(invitations.acceptedAt),
-					isNull(invitations.revokedAt)
-				)
-			)
-			.returning();
-		if (!row) return false;
-		await recordActivity(tx, {
-			teamId,
-			actor,
-			entity: 'invitation',
-			entityId: id,
-			action: 'revoke',
-			summary: `withdrew the invitation to ${row.email}`,
-			before: { email: row.email, role: row.role }
-		});
-		return true;
-	});
+	return db.transaction(
+		async (tx) => (await withdrawInvitations(tx, actor, teamId, eq(invitations.id, id))) === 1
+	);
 }

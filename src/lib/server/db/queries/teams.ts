@@ -1,4 +1,4 @@
-import { and, asc, eq, isNull, sql } from 'drizzle-orm';
+import { and, asc, eq, isNull, sql, type SQL } from 'drizzle-orm';
 import { can } from '../../capabilities';
 import type { Db } from '../connect';
 import { invitations, memberships, teams, users, type Role } from '../schema';
@@ -108,17 +108,23 @@ async function adminCount(db: Db, teamId: string) {
 }
 
 /**
- * Someone who no longer manages the team (removed, or a role without `manageTeam`) no longer
- * brings anyone in: the invitations they sent that are still open are withdrawn.
+ * Withdraws the team's invitations that `which` picks and are neither accepted nor withdrawn,
+ * each recorded in the trail (`why` follows its summary); answers how many.
  */
-async function revokeInvitationsBy(db: Db, actor: Actor, teamId: string, inviterId: string) {
+export async function withdrawInvitations(
+	db: Db,
+	actor: Actor,
+	teamId: string,
+	which: SQL,
+	why = ''
+) {
 	const revoked = await db
 		.update(invitations)
 		.set({ revokedAt: new Date() })
 		.where(
 			and(
 				eq(invitations.teamId, teamId),
-				eq(invitations.invitedBy, inviterId),
+				which,
 				isNull(invitations.acceptedAt),
 				isNull(invitations.revokedAt)
 			)
@@ -131,11 +137,25 @@ async function revokeInvitationsBy(db: Db, actor: Actor, teamId: string, inviter
 			entity: 'invitation',
 			entityId: row.id,
 			action: 'revoke',
-			summary: `withdrew the invitation to ${row.email}: its sender no longer manages the team`,
+			summary: `withdrew the invitation to ${row.email}${why}`,
 			before: { email: row.email, role: row.role }
 		});
 	}
+	return revoked.length;
 }
+
+/**
+ * Someone who no longer manages the team (removed, or a role without `manageTeam`) no longer
+ * brings anyone in: the invitations they sent that are still open are withdrawn.
+ */
+const revokeInvitationsBy = (db: Db, actor: Actor, teamId: string, inviterId: string) =>
+	withdrawInvitations(
+		db,
+		actor,
+		teamId,
+		eq(invitations.invitedBy, inviterId),
+		': its sender no longer manages the team'
+	);
 
 export async function changeRole(db: Db, actor: Actor, teamId: string, userId: string, role: Role) {
 	return db.transaction(async (tx) => {
