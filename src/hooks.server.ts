@@ -35,7 +35,7 @@ export const init: ServerInit = async () => {
 		const password = demoPassword(config.dataDir, env.DEMO_PASSWORD);
 		// The seed brings the PDF generator and its fonts: load it only when seeding.
 		const { seedDemo } = await import('$lib/server/demo/seed');
-		await seedDemo(database.db, password, getStorage(), config.uploadTempDir);
+		await seedDemo(db, password, getStorage(), config.uploadTempDir);
 		console.log(
 			`[checkplate] demo users ${demoPeople.map((p) => p.email).join(', ')} — password: ${password}`
 		);

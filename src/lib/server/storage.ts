@@ -30,6 +30,33 @@ export interface ByteRange {
 
 export class StorageVerificationError extends Error {}
 
+/**
+ * Counts and hashes bytes (SHA-256) as they pass, in one step: the upload's copy to disk, the
+ * stream into the bucket and the check of what the bucket holds all tally through this.
+ */
+export class ByteTally {
+	size = 0;
+	private readonly hash = createHash('sha256');
+
+	add(chunk: Uint8Array) {
+		this.hash.update(chunk);
+		this.size += chunk.length;
+		return chunk;
+	}
+
+	/** A pass-through stream that tallies what flows through it. */
+	through() {
+		return new Transform({
+			transform: (chunk: Buffer, _encoding, done) => done(null, this.add(chunk))
+		});
+	}
+
+	/** The SHA-256 (hex) of everything added; call once, at the end. */
+	sha256() {
+		return this.hash.digest('hex');
+	}
+}
+
 export function createStorage(settings: StorageSettings) {
 	// Without WHEN_REQUIRED the SDK frames stream bodies with a checksum trailer that some
 	// S3-compatible servers store inside the object.
@@ -45,15 +72,7 @@ export function createStorage(settings: StorageSettings) {
 
 	/** Streams a body of unknown length into the bucket, then checks what the bucket holds. */
 	async function put(key: string, body: Readable, contentType = 'application/octet-stream') {
-		const hash = createHash('sha256');
-		let size = 0;
-		const counter = new Transform({
-			transform(chunk: Buffer, _encoding, done) {
-				hash.update(chunk);
-				size += chunk.length;
-				done(null, chunk);
-			}
-		});
+		const tally = new ByteTally();
 		const passThrough = new PassThrough();
 		const upload = new Upload({
 			client,
@@ -63,7 +82,7 @@ export function createStorage(settings: StorageSettings) {
 		});
 		const sending = upload.done();
 		try {
-			await Promise.all([pipeline(body, counter, passThrough), sending]);
+			await Promise.all([pipeline(body, tally.through(), passThrough), sending]);
 		} catch (err) {
 			// Whichever side failed, stop the other: the body is not read on, and the upload, its
 			// source broken, ends by aborting the multipart upload so the bucket keeps no parts.
@@ -72,7 +91,7 @@ export function createStorage(settings: StorageSettings) {
 			await settleWithin(sending, 30_000, () => upload.abort());
 			throw err;
 		}
-		const stored: StoredObject = { key, size, sha256: hash.digest('hex') };
+		const stored: StoredObject = { key, size: tally.size, sha256: tally.sha256() };
 		await verify(stored);
 		return stored;
 	}
@@ -84,11 +103,10 @@ export function createStorage(settings: StorageSettings) {
 				`Stored ${head.ContentLength} bytes for ${expected.key}, sent ${expected.size}`
 			);
 		}
-		const hash = createHash('sha256');
+		const tally = new ByteTally();
 		const { body } = await get(expected.key);
-		for await (const chunk of body) hash.update(chunk as Buffer);
-		const sha256 = hash.digest('hex');
-		if (sha256 !== expected.sha256) {
+		for await (const chunk of body) tally.add(chunk as Buffer);
+		if (tally.sha256() !== expected.sha256) {
 			throw new StorageVerificationError(
 				`Stored object ${expected.key} differs from what was sent`
 			);

@@ -1,12 +1,11 @@
-import { createHash, randomBytes } from 'node:crypto';
 import { and, desc, eq, gt, isNull } from 'drizzle-orm';
 import type { Db } from '../connect';
 import { invitations, teams, type Role } from '../schema';
+import { hashSecretToken, newSecretToken } from '../../secret-tokens';
 import { recordActivity, type Actor } from './activity';
 import { addMember } from './teams';
 import { normaliseEmail } from './users';
 
-const hash = (token: string) => createHash('sha256').update(token).digest('hex');
 export const invitationLifetimeMs = 7 * 24 * 60 * 60_000;
 
 export async function createInvitation(
@@ -15,7 +14,7 @@ export async function createInvitation(
 	teamId: string,
 	input: { email: string; role: Role }
 ) {
-	const token = randomBytes(32).toString('base64url');
+	const { token, hash } = newSecretToken();
 	const email = normaliseEmail(input.email);
 	const invitation = await db.transaction(async (tx) => {
 		const [row] = await tx
@@ -24,7 +23,7 @@ export async function createInvitation(
 				teamId,
 				email,
 				role: input.role,
-				tokenHash: hash(token),
+				tokenHash: hash,
 				invitedBy: actor.id,
 				expiresAt: new Date(Date.now() + invitationLifetimeMs)
 			})
@@ -77,7 +76,7 @@ export async function findInvitation(
 		.select({ invitation: invitations, teamName: teams.name, teamSlug: teams.slug })
 		.from(invitations)
 		.innerJoin(teams, eq(teams.id, invitations.teamId))
-		.where(eq(invitations.tokenHash, hash(token)));
+		.where(eq(invitations.tokenHash, hashSecretToken(token)));
 	if (!row || row.invitation.revokedAt) return { ok: false, reason: 'invalid' };
 	if (row.invitation.acceptedAt) return { ok: false, reason: 'used' };
 	if (row.invitation.expiresAt <= now) return { ok: false, reason: 'expired' };

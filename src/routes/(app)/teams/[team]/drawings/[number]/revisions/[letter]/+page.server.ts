@@ -1,4 +1,5 @@
 import { db } from '$lib/server/db';
+import { publicDrawing, publicRevision } from '$lib/server/db/queries/drawings';
 import { getUserById } from '$lib/server/db/queries/users';
 import { requireRevision } from '$lib/server/drawings';
 import type { PageServerLoad } from './$types';
@@ -12,16 +13,9 @@ export const load: PageServerLoad = async ({ params }) => {
 	);
 	const uploader = revision.uploadedBy ? await getUserById(db, revision.uploadedBy) : null;
 	return {
-		drawing: { number: drawing.number, title: drawing.title, units: drawing.units },
+		drawing: publicDrawing(drawing),
 		revision: {
-			letter: revision.letter,
-			reason: revision.reason,
-			state: revision.state,
-			pages: revision.pages,
-			sheets: revision.sheets,
-			size: revision.size,
-			sha256: revision.sha256,
-			createdAt: revision.createdAt,
+			...publicRevision(revision),
 			uploadedBy: uploader ? (uploader.name ?? uploader.email) : null
 		}
 	};
