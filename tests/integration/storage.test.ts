@@ -80,7 +80,10 @@ describe('verifying what the bucket holds, once', () => {
 					body
 				});
 				const result = await next(args);
-				answer?.(context.commandName as string, result.output as Record<string, unknown>);
+				answer?.(
+					context.commandName as string,
+					result.output as unknown as Record<string, unknown>
+				);
 				return result;
 			},
 			{ step: 'finalizeRequest', name: 'watchStorage', priority: 'low' }
