@@ -146,27 +146,26 @@ export async function updateFeature(
 	version: number,
 	changes: Partial<FeatureValues>
 ) {
-	return writeOnRevision(db, {
-		actor,
-		drawing,
-		revision,
-		entity: 'feature',
-		write: async (tx) =>
-			(
-				await tx
+	return writeOnRevision(
+		db,
+		{ actor, drawing, revision },
+		{
+			entity: 'feature',
+			write: (tx) =>
+				tx
 					.update(features)
 					.set({ ...changes, version: sql`${features.version} + 1`, updatedAt: new Date() })
 					.where(and(eq(features.id, feature.id), eq(features.version, version)))
-					.returning()
-			)[0],
-		stale: async (tx) => new StaleFeature(await currentFeature(tx, feature.id)),
-		record: (row) => ({
-			action: 'update',
-			summary: `edited ${name(row)} on revision ${revision.letter} of ${drawing.number}`,
-			before: storedFeature(feature),
-			after: storedFeature(row)
-		})
-	});
+					.returning(),
+			stale: async (tx) => new StaleFeature(await currentFeature(tx, feature.id)),
+			record: (row) => ({
+				action: 'update',
+				summary: `edited ${name(row)} on revision ${revision.letter} of ${drawing.number}`,
+				before: storedFeature(feature),
+				after: storedFeature(row)
+			})
+		}
+	);
 }
 
 export async function deleteFeature(
@@ -177,38 +176,37 @@ export async function deleteFeature(
 	feature: FeatureRow,
 	version: number
 ) {
-	return writeOnRevision(db, {
-		actor,
-		drawing,
-		revision,
-		entity: 'feature',
-		check: async (tx) => {
-			const using = await tx
-				.select({ id: fits.id })
-				.from(fits)
-				.where(
-					or(
-						eq(fits.holeFeatureId, feature.id),
-						eq(fits.shaftFeatureId, feature.id),
-						eq(fits.fixedHoleFeatureId, feature.id)
-					)
-				);
-			if (using.length > 0) throw new FeatureInUse(using.map((f) => f.id));
-		},
-		write: async (tx) =>
-			(
-				await tx
+	return writeOnRevision(
+		db,
+		{ actor, drawing, revision },
+		{
+			entity: 'feature',
+			check: async (tx) => {
+				const using = await tx
+					.select({ id: fits.id })
+					.from(fits)
+					.where(
+						or(
+							eq(fits.holeFeatureId, feature.id),
+							eq(fits.shaftFeatureId, feature.id),
+							eq(fits.fixedHoleFeatureId, feature.id)
+						)
+					);
+				if (using.length > 0) throw new FeatureInUse(using.map((f) => f.id));
+			},
+			write: (tx) =>
+				tx
 					.delete(features)
 					.where(and(eq(features.id, feature.id), eq(features.version, version)))
-					.returning()
-			)[0],
-		stale: async (tx) => new StaleFeature(await currentFeature(tx, feature.id)),
-		record: (row) => ({
-			action: 'delete',
-			summary: `deleted ${name(row)} from revision ${revision.letter} of ${drawing.number}`,
-			before: storedFeature(row)
-		})
-	});
+					.returning(),
+			stale: async (tx) => new StaleFeature(await currentFeature(tx, feature.id)),
+			record: (row) => ({
+				action: 'delete',
+				summary: `deleted ${name(row)} from revision ${revision.letter} of ${drawing.number}`,
+				before: storedFeature(row)
+			})
+		}
+	);
 }
 
 async function currentFeature(tx: Db, id: string) {

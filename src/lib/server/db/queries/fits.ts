@@ -98,14 +98,13 @@ export async function createFit(
 	values: FitValues,
 	summary: string
 ) {
-	return writeOnRevision(db, {
-		actor,
-		drawing,
-		revision,
-		entity: 'fit',
-		write: async (tx) =>
-			(
-				await tx
+	return writeOnRevision(
+		db,
+		{ actor, drawing, revision },
+		{
+			entity: 'fit',
+			write: (tx) =>
+				tx
 					.insert(fits)
 					.values({
 						...values,
@@ -113,14 +112,14 @@ export async function createFit(
 						revisionId: revision.id,
 						createdBy: actor.id
 					})
-					.returning()
-			)[0],
-		record: (row) => ({
-			action: 'create',
-			summary: `added the fit ${summary} on ${where(revision, drawing)}`,
-			after: storedFit(row)
-		})
-	});
+					.returning(),
+			record: (row) => ({
+				action: 'create',
+				summary: `added the fit ${summary} on ${where(revision, drawing)}`,
+				after: storedFit(row)
+			})
+		}
+	);
 }
 
 /** Applies an edit made against `version`; a stale one throws with the current fit. */
@@ -134,27 +133,26 @@ export async function updateFit(
 	changes: Partial<FitValues>,
 	summary: string
 ) {
-	return writeOnRevision(db, {
-		actor,
-		drawing,
-		revision,
-		entity: 'fit',
-		write: async (tx) =>
-			(
-				await tx
+	return writeOnRevision(
+		db,
+		{ actor, drawing, revision },
+		{
+			entity: 'fit',
+			write: (tx) =>
+				tx
 					.update(fits)
 					.set({ ...changes, version: fit.version + 1, updatedAt: new Date() })
 					.where(and(eq(fits.id, fit.id), eq(fits.version, version)))
-					.returning()
-			)[0],
-		stale: async (tx) => new StaleFit(await currentFit(tx, fit.id)),
-		record: (row) => ({
-			action: 'update',
-			summary: `edited the fit ${summary} on ${where(revision, drawing)}`,
-			before: storedFit(fit),
-			after: storedFit(row)
-		})
-	});
+					.returning(),
+			stale: async (tx) => new StaleFit(await currentFit(tx, fit.id)),
+			record: (row) => ({
+				action: 'update',
+				summary: `edited the fit ${summary} on ${where(revision, drawing)}`,
+				before: storedFit(fit),
+				after: storedFit(row)
+			})
+		}
+	);
 }
 
 export async function deleteFit(
@@ -166,25 +164,24 @@ export async function deleteFit(
 	version: number,
 	summary: string
 ) {
-	return writeOnRevision(db, {
-		actor,
-		drawing,
-		revision,
-		entity: 'fit',
-		write: async (tx) =>
-			(
-				await tx
+	return writeOnRevision(
+		db,
+		{ actor, drawing, revision },
+		{
+			entity: 'fit',
+			write: (tx) =>
+				tx
 					.delete(fits)
 					.where(and(eq(fits.id, fit.id), eq(fits.version, version)))
-					.returning()
-			)[0],
-		stale: async (tx) => new StaleFit(await currentFit(tx, fit.id)),
-		record: (row) => ({
-			action: 'delete',
-			summary: `deleted the fit ${summary} from ${where(revision, drawing)}`,
-			before: storedFit(row)
-		})
-	});
+					.returning(),
+			stale: async (tx) => new StaleFit(await currentFit(tx, fit.id)),
+			record: (row) => ({
+				action: 'delete',
+				summary: `deleted the fit ${summary} from ${where(revision, drawing)}`,
+				before: storedFit(row)
+			})
+		}
+	);
 }
 
 async function currentFit(tx: Db, id: string) {

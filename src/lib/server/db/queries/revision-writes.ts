@@ -39,16 +39,20 @@ export async function lockOpenRevision(tx: Db, revision: RevisionRow) {
 	return locked;
 }
 
-export interface RevisionWrite<Row extends { id: string }> {
+/** Who writes, and on which revision of which drawing. */
+export interface RevisionPlace {
 	actor: Actor;
 	drawing: DrawingRow;
 	revision: RevisionRow;
+}
+
+export interface RevisionWrite<Row extends { id: string }> {
 	/** The trail's name for the row: `feature`, `fit`, … */
 	entity: string;
 	/** Checks under the lock before the write; throws to refuse. */
 	check?: (tx: Db) => Promise<void>;
-	/** The write; nothing back means the version it was made against is gone. */
-	write: (tx: Db) => Promise<Row | undefined>;
+	/** The write (`… .returning()`); no row back means the version it was made against is gone. */
+	write: (tx: Db) => Promise<Row[]>;
 	/** The error for a write that found no row at its version (a `StaleWrite`). */
 	stale?: (tx: Db) => Promise<Error>;
 	/** What the trail records of the written row. */
@@ -61,19 +65,20 @@ export interface RevisionWrite<Row extends { id: string }> {
  */
 export async function writeOnRevision<Row extends { id: string }>(
 	db: Db,
+	{ actor, drawing, revision }: RevisionPlace,
 	change: RevisionWrite<Row>
 ): Promise<Row> {
 	return db.transaction(async (tx) => {
-		await lockOpenRevision(tx, change.revision);
+		await lockOpenRevision(tx, revision);
 		await change.check?.(tx);
-		const row = await change.write(tx);
+		const [row] = await change.write(tx);
 		if (!row) throw (await change.stale?.(tx)) ?? new Error(`The ${change.entity} was not written`);
 		await recordActivity(tx, {
-			teamId: change.drawing.teamId,
-			actor: change.actor,
+			teamId: drawing.teamId,
+			actor,
 			entity: change.entity,
 			entityId: row.id,
-			drawingId: change.drawing.id,
+			drawingId: drawing.id,
 			...change.record(row)
 		});
 		return row;
