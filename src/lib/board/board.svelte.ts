@@ -18,6 +18,7 @@ import {
 	clampView,
 	fitSheet,
 	fitWidth,
+	keepTopLeft,
 	panBy,
 	pageToScreen,
 	sameView,
@@ -190,10 +191,12 @@ export class BoardState {
 	resize(size: Size) {
 		if (size.width === this.viewport.width && size.height === this.viewport.height) return;
 		const first = this.viewport.width === 0;
+		const before = this.viewport;
 		this.viewport = size;
 		this.#markersChanged = true;
 		if (this.#fitted === 'sheet' || !this.view) this.view = fitSheet(this.page, size);
 		else if (this.#fitted === 'width') this.view = fitWidth(this.page, size);
+		else if (!first) this.view = keepTopLeft(this.view, this.page, before, size);
 		if (first && this.#page) void this.#painter?.paintPicture(size, devicePixelRatio);
 		this.#moved();
 	}
