@@ -159,17 +159,22 @@ process.once('SIGTERM', () => void stop(0));
 process.once('SIGHUP', () => void stop(0));
 
 const url = env.ORIGIN;
-// Migrating and seeding take a while on a busy machine: "running" only once it answers.
-for (let i = 0; i < 1700 && !stopping; i++) {
+// Migrations and the demo seed can take a while on a busy machine: wait for the first answer
+// (up to three minutes) before saying the app runs, and stop if it never answers.
+let answered = false;
+for (const deadline = Date.now() + 180_000; !answered && !stopping && Date.now() < deadline;) {
 	try {
-		const response = await fetch(`http://127.0.0.1:${port}/`);
-		if (response.ok) break;
+		answered = (await fetch(`http://127.0.0.1:${port}/`)).ok;
 	} catch {
 		// not listening yet
 	}
-	await new Promise((done) => setTimeout(done, 100));
+	if (!answered) await new Promise((done) => setTimeout(done, 100));
 }
-if (!stopping) {
+if (!answered && !stopping) {
+	console.error('[checkplate] the app did not answer within three minutes: stopping');
+	void stop(1);
+}
+if (answered && !stopping) {
 	say(
 		`database        ${env.DATABASE_URL ? 'PostgreSQL server (DATABASE_URL)' : `embedded, in ${join(dataDir, 'pglite')}`}`
 	);

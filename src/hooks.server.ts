@@ -42,7 +42,7 @@ export const init: ServerInit = async () => {
 		const password = demoPassword(config.dataDir, env.DEMO_PASSWORD);
 		// The seed brings the PDF generator and its fonts: load it only when seeding.
 		const { seedDemo } = await import('$lib/server/demo/seed');
-		await seedDemo(database.db, password, getStorage(), config.uploadTempDir);
+		await seedDemo(db, password, getStorage(), config.uploadTempDir);
 		// Where to read the password, never the password: logs travel further than a data dir.
 		const where = env.DEMO_PASSWORD
 			? 'the DEMO_PASSWORD setting'

@@ -4,15 +4,8 @@
  */
 import { error } from '@sveltejs/kit';
 import type { z } from 'zod';
-import { requireJsonType } from '$lib/server/api-input';
-import {
-	CAUTION,
-	adviseInput,
-	firstIssue,
-	fitInput,
-	sizeInput,
-	sizeQuery
-} from '$lib/schemas/calc';
+import { parseOrRefuse } from '$lib/server/api-input';
+import { CAUTION, adviseInput, fitInput, sizeInput, sizeQuery } from '$lib/schemas/calc';
 import { formatCallout } from '$lib/tolerance/callout-format';
 import { evaluateFeature, type FeatureEvaluation } from '$lib/tolerance/feature';
 import { evaluateFit, type FitEvaluation, type FitMemberInput } from '$lib/tolerance/fit';
@@ -22,21 +15,6 @@ import { sizeFindings, type SizeFinding } from '$lib/tolerance/rulebook';
 export function invalid(message: string, extra: Record<string, unknown> = {}): never {
 	const body = { message, code: 'invalid', ...extra };
 	error(400, body);
-}
-
-export function parseOrFail<T extends z.ZodType>(schema: T, data: unknown): z.output<T> {
-	const parsed = schema.safeParse(data);
-	if (!parsed.success) invalid(firstIssue(parsed.error), { issues: parsed.error.issues });
-	return parsed.data;
-}
-
-export async function readJson(request: Request): Promise<unknown> {
-	requireJsonType(request);
-	try {
-		return await request.json();
-	} catch {
-		invalid('the request body must be JSON');
-	}
 }
 
 /** The size and what the rulebook says about it: `findings` is empty when it is clean. */
@@ -171,7 +149,7 @@ export function fitJson(
 
 /** GET query or POST body of /api/v1/calc/size → the size object. Throws 400 on bad input. */
 export function calcSize(data: unknown, from: 'query' | 'body') {
-	const input = parseOrFail(from === 'query' ? sizeQuery : sizeInput, data) as z.output<
+	const input = parseOrRefuse(from === 'query' ? sizeQuery : sizeInput, data) as z.output<
 		typeof sizeInput
 	>;
 	const result = evaluateFeature({
@@ -239,7 +217,7 @@ function memberFindings(m: FitBody['hole'], internal: boolean, fit: FitBody): Si
 }
 
 export function calcFit(data: unknown) {
-	const input = parseOrFail(fitInput, data);
+	const input = parseOrRefuse(fitInput, data);
 	const result = evaluateFit({
 		hole: memberInput(input.hole, input),
 		shaft: input.shaft ? memberInput(input.shaft, input) : undefined,
@@ -265,7 +243,7 @@ export function calcFit(data: unknown) {
 }
 
 export function calcAdvise(data: unknown) {
-	const input = parseOrFail(adviseInput, data);
+	const input = parseOrRefuse(adviseInput, data);
 	const result = adviseFit(input);
 	if (!result.ok) invalid(result.message, { field: 'basicSize' });
 	const { ok: _ok, ...proposals } = result;

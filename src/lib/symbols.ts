@@ -1,3 +1,5 @@
+import type { Characteristic, MaterialModifier } from '$lib/tolerance/feature';
+
 /** The geometric tolerancing symbols the product shows, with the names used in the standards. */
 export const geometricSymbols = [
 	{ glyph: '⌀', codePoint: 'U+2300', name: 'Diameter' },
@@ -28,3 +30,28 @@ export const modifierSymbols = [
 	{ glyph: 'Ⓣ', codePoint: 'U+24C9', name: 'Tangent plane' },
 	{ glyph: 'Ⓤ', codePoint: 'U+24CA', name: 'Unequally disposed profile' }
 ] as const;
+
+/** Each geometric characteristic's symbol and its name in the standards. */
+export const characteristicSymbols: Record<Characteristic, { glyph: string; name: string }> = {
+	straightness: { glyph: '⏤', name: 'Straightness' },
+	flatness: { glyph: '⏥', name: 'Flatness' },
+	circularity: { glyph: '○', name: 'Circularity' },
+	cylindricity: { glyph: '⌭', name: 'Cylindricity' },
+	'profile-of-a-line': { glyph: '⌒', name: 'Profile of a line' },
+	'profile-of-a-surface': { glyph: '⌓', name: 'Profile of a surface' },
+	angularity: { glyph: '∠', name: 'Angularity' },
+	perpendicularity: { glyph: '⊥', name: 'Perpendicularity' },
+	parallelism: { glyph: '∥', name: 'Parallelism' },
+	position: { glyph: '⌖', name: 'Position' },
+	concentricity: { glyph: '◎', name: 'Concentricity / coaxiality' },
+	symmetry: { glyph: '⌯', name: 'Symmetry' },
+	'circular-runout': { glyph: '↗', name: 'Circular run-out' },
+	'total-runout': { glyph: '⌰', name: 'Total run-out' }
+};
+
+/** The material condition modifiers as a frame shows them (regardless of size shows nothing). */
+export const materialModifierSymbols: Record<MaterialModifier, { glyph: string; name: string }> = {
+	mmc: { glyph: 'Ⓜ', name: 'at MMC' },
+	lmc: { glyph: 'Ⓛ', name: 'at LMC' },
+	rfs: { glyph: '', name: 'regardless of size' }
+};

@@ -3,14 +3,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Database } from '../../src/lib/server/db/connect';
 import { activity, revisions, type DrawingRow } from '../../src/lib/server/db/schema';
 import {
-	createDrawing,
 	getRevision,
-	insertRevision,
 	updateDrawing,
 	updateRevision
 } from '../../src/lib/server/db/queries/drawings';
-import { createTeam } from '../../src/lib/server/db/queries/teams';
-import { createUser } from '../../src/lib/server/db/queries/users';
+import type { Actor } from '../../src/lib/server/db/queries/activity';
 import {
 	addFeature,
 	editFeature,
@@ -20,48 +17,23 @@ import {
 } from '../../src/lib/server/features';
 import { featureInput, featurePatch } from '../../src/lib/schemas/features';
 import { getFeature } from '../../src/lib/server/db/queries/features';
-import { freshDatabase } from './harness';
+import { freshDatabase, teamWithTwoDrawings } from './harness';
 
 let database: Database;
-let actor: { id: string; name: string | null; email: string };
-let team: Awaited<ReturnType<typeof createTeam>>;
+let actor: Actor;
 let drawing: DrawingRow;
+let setup: Awaited<ReturnType<typeof teamWithTwoDrawings>>;
 
-const sheet = { width: 1190.55, height: 841.89 };
-let nextLetter = 0;
-
-/** A revision stored without a file: the service never reads the PDF. */
-async function newRevision(): Promise<FeaturePlace> {
-	const letter = 'ABCDEFGHJK'[nextLetter++];
-	const revision = await insertRevision(database.db, actor, drawing, {
-		letter,
-		pages: 2,
-		sheets: [sheet, sheet],
-		sha256: letter.repeat(64),
-		size: 1000,
-		storageKey: `test/${letter}.pdf`
-	});
-	return { team, drawing, revision };
-}
+/** A revision of the bushing (as it is now) stored without a file, on two sheets. */
+const newRevision = (): Promise<FeaturePlace> => setup.newRevision(drawing, 2);
 
 const input = (data: Record<string, unknown>) => featureInput.parse(data);
 const patch = (data: Record<string, unknown>) => featurePatch.parse(data);
 
 beforeAll(async () => {
 	database = await freshDatabase();
-	actor = (await createUser(database.db, {
-		name: 'Dana Drafter',
-		email: 'dana@example.test',
-		passwordHash: null
-	}))!;
-	team = await createTeam(database.db, actor, { slug: 'acme', name: 'Acme' });
-	drawing = await createDrawing(database.db, actor, team.id, {
-		number: 'P-100',
-		title: 'Bushing',
-		units: 'mm',
-		standard: 'iso-8015',
-		generalTolerance: { kind: 'iso2768', linear: 'm', geometric: 'K' }
-	});
+	setup = await teamWithTwoDrawings(database.db);
+	({ actor, bushing: drawing } = setup);
 });
 afterAll(() => database?.close());
 

@@ -2,9 +2,7 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Database } from '../../src/lib/server/db/connect';
 import { activity, revisions, type DrawingRow } from '../../src/lib/server/db/schema';
-import { createDrawing, insertRevision } from '../../src/lib/server/db/queries/drawings';
-import { createTeam } from '../../src/lib/server/db/queries/teams';
-import { createUser } from '../../src/lib/server/db/queries/users';
+import type { Actor } from '../../src/lib/server/db/queries/activity';
 import { addFeature, removeFeature, type FeaturePlace } from '../../src/lib/server/features';
 import {
 	addFit,
@@ -19,29 +17,13 @@ import { fitCreate, fitPatch, fitResponse } from '../../src/lib/schemas/fits';
 import type { FeatureJson } from '../../src/lib/features';
 import { getFeature } from '../../src/lib/server/db/queries/features';
 import { listFits } from '../../src/lib/server/db/queries/fits';
-import { freshDatabase } from './harness';
+import { freshDatabase, teamWithTwoDrawings } from './harness';
 
 let database: Database;
-let actor: { id: string; name: string | null; email: string };
-let team: Awaited<ReturnType<typeof createTeam>>;
+let actor: Actor;
 let bushing: DrawingRow;
 let shaftDrawing: DrawingRow;
-
-const sheet = { width: 1190.55, height: 841.89 };
-let nextLetter = 0;
-
-async function newRevision(drawing: DrawingRow): Promise<FeaturePlace & FitPlace> {
-	const letter = 'ABCDEFGHJKLMNP'[nextLetter++];
-	const revision = await insertRevision(database.db, actor, drawing, {
-		letter,
-		pages: 1,
-		sheets: [sheet],
-		sha256: letter.repeat(64),
-		size: 1000,
-		storageKey: `test/${drawing.number}-${letter}.pdf`
-	});
-	return { team, drawing, revision };
-}
+let newRevision: (drawing: DrawingRow) => Promise<FeaturePlace & FitPlace>;
 
 async function feature(place: FeaturePlace, data: Record<string, unknown>): Promise<FeatureJson> {
 	const outcome = await addFeature(database.db, actor, place, featureInput.parse(data));
@@ -60,26 +42,7 @@ async function pair() {
 
 beforeAll(async () => {
 	database = await freshDatabase();
-	actor = (await createUser(database.db, {
-		name: 'Dana Drafter',
-		email: 'dana@example.test',
-		passwordHash: null
-	}))!;
-	team = await createTeam(database.db, actor, { slug: 'acme', name: 'Acme' });
-	bushing = await createDrawing(database.db, actor, team.id, {
-		number: 'KF-1002',
-		title: 'Bushing',
-		units: 'mm',
-		standard: 'iso-8015',
-		generalTolerance: { kind: 'iso2768', linear: 'm', geometric: 'K' }
-	});
-	shaftDrawing = await createDrawing(database.db, actor, team.id, {
-		number: 'KF-1003',
-		title: 'Shaft',
-		units: 'mm',
-		standard: 'asme-y14.5-2018',
-		generalTolerance: null
-	});
+	({ actor, bushing, shaft: shaftDrawing, newRevision } = await teamWithTwoDrawings(database.db));
 });
 afterAll(() => database?.close());
 
@@ -222,7 +185,7 @@ describe('fits across drawings', () => {
 		const otherTeam = await addFit(
 			database.db,
 			actor,
-			{ ...hole, team: { ...team, id: crypto.randomUUID() } },
+			{ ...hole, team: { ...hole.team, id: crypto.randomUUID() } },
 			fitCreate.parse({ holeFeatureId: bore.id, shaftFeatureId: journal.id })
 		);
 		expect(otherTeam).toMatchObject({ ok: false, status: 400 });

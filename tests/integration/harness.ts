@@ -5,6 +5,10 @@ import { randomBytes } from 'node:crypto';
 import { sql } from 'drizzle-orm';
 import pg from 'pg';
 import { openPglite, openPostgres, type Database, type Db } from '../../src/lib/server/db/connect';
+import type { DrawingRow } from '../../src/lib/server/db/schema';
+import { createDrawing, insertRevision } from '../../src/lib/server/db/queries/drawings';
+import { createTeam } from '../../src/lib/server/db/queries/teams';
+import { createUser } from '../../src/lib/server/db/queries/users';
 import { startS3Fake } from '../../fakes/s3.js';
 import { startSmtpFake } from '../../fakes/smtp.js';
 
@@ -97,4 +101,47 @@ export async function breakWrites(db: Db, table: string, op: 'INSERT' | 'UPDATE'
 	return async () => {
 		await db.execute(sql.raw(`DROP TRIGGER ${name} ON "${table}"`));
 	};
+}
+
+/**
+ * A drafter, the team Acme and two of its drawings: a bushing (mm, ISO 8015, ISO 2768-mK) and a
+ * shaft (mm, ASME Y14.5-2018, no general tolerance). `newRevision` stores a revision of either
+ * without a file (the services never read the PDF), lettered A, B, … in the order made.
+ */
+export async function teamWithTwoDrawings(db: Db) {
+	const actor = (await createUser(db, {
+		name: 'Dana Drafter',
+		email: 'dana@example.test',
+		passwordHash: null
+	}))!;
+	const team = await createTeam(db, actor, { slug: 'acme', name: 'Acme' });
+	const bushing = await createDrawing(db, actor, team.id, {
+		number: 'KF-1002',
+		title: 'Bushing',
+		units: 'mm',
+		standard: 'iso-8015',
+		generalTolerance: { kind: 'iso2768', linear: 'm', geometric: 'K' }
+	});
+	const shaft = await createDrawing(db, actor, team.id, {
+		number: 'KF-1003',
+		title: 'Shaft',
+		units: 'mm',
+		standard: 'asme-y14.5-2018',
+		generalTolerance: null
+	});
+	const sheet = { width: 1190.55, height: 841.89 };
+	let made = 0;
+	async function newRevision(drawing: DrawingRow, pages = 1) {
+		const letter = 'ABCDEFGHJKLMNPRTUVWY'[made++];
+		const revision = await insertRevision(db, actor, drawing, {
+			letter,
+			pages,
+			sheets: Array.from({ length: pages }, () => sheet),
+			sha256: letter.repeat(64),
+			size: 1000,
+			storageKey: `test/${drawing.number}-${letter}.pdf`
+		});
+		return { team, drawing, revision };
+	}
+	return { actor, team, bushing, shaft, newRevision };
 }

@@ -8,6 +8,7 @@ import {
 	fitMargin,
 	fitSheet,
 	fitWidth,
+	keepTopLeft,
 	maxZoom,
 	minZoom,
 	pageRect,
@@ -43,6 +44,23 @@ const points = fc.record({
 const screenPoints = fc.record({
 	x: fc.double({ min: 0, max: viewport.width, noNaN: true }),
 	y: fc.double({ min: 0, max: viewport.height, noNaN: true })
+});
+
+describe('a viewport that changes size', () => {
+	it('keeps what shows at the top-left where it is (a side panel widening)', () => {
+		const view: View = { zoom: 1, centre: { x: 0.5, y: 0.5 } };
+		const narrower = { width: viewport.width - 256, height: viewport.height };
+		const next = keepTopLeft(view, a0, viewport, narrower);
+		for (const at of [
+			{ x: 0, y: 0 },
+			{ x: 300, y: 500 }
+		]) {
+			const point = screenToPage(at, view, a0, viewport);
+			const moved = pageToScreen(point, next, a0, narrower);
+			expect(moved.x).toBeCloseTo(at.x, 9);
+			expect(moved.y).toBeCloseTo(at.y, 9);
+		}
+	});
 });
 
 describe('page and screen', () => {

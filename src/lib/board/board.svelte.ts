@@ -18,6 +18,7 @@ import {
 	clampView,
 	fitSheet,
 	fitWidth,
+	keepTopLeft,
 	panBy,
 	pageToScreen,
 	sameView,
@@ -41,6 +42,8 @@ export interface BoardEvents {
 	onview?: (link: ViewLink, how: 'replace' | 'push') => void;
 	onmove?: (marker: Marker, location: Marker['location']) => void;
 	onselect?: (marker: Marker | null) => void;
+	/** In place mode, the sheet was clicked (or an item dropped on it) at `location`. */
+	onplace?: (location: Marker['location'], item: string | null) => void;
 }
 
 /**
@@ -61,6 +64,8 @@ export class BoardState {
 	focused = $state<string | null>(null);
 	hovered = $state.raw<{ marker: Marker; at: Point } | null>(null);
 	highlighted = $state.raw<string[]>([]);
+	/** Place mode: what a click on the sheet places (said on the sheet), or null. */
+	placing = $state<string | null>(null);
 	/** Nothing moving and no drawing under way: what is shown is final (for tests and the bench). */
 	idle = $state(false);
 	/** Figures for tests and the bench: milliseconds of the last picture and sharp drawings. */
@@ -186,10 +191,12 @@ export class BoardState {
 	resize(size: Size) {
 		if (size.width === this.viewport.width && size.height === this.viewport.height) return;
 		const first = this.viewport.width === 0;
+		const before = this.viewport;
 		this.viewport = size;
 		this.#markersChanged = true;
 		if (this.#fitted === 'sheet' || !this.view) this.view = fitSheet(this.page, size);
 		else if (this.#fitted === 'width') this.view = fitWidth(this.page, size);
+		else if (!first) this.view = keepTopLeft(this.view, this.page, before, size);
 		if (first && this.#page) void this.#painter?.paintPicture(size, devicePixelRatio);
 		this.#moved();
 	}
@@ -437,6 +444,19 @@ export class BoardState {
 		const location = movedLocation(marker.location, { x: to.x - grab.x, y: to.y - grab.y });
 		this.moveMarker(marker.id, location);
 		return location;
+	}
+
+	/** A point of the shown sheet under a screen point, as a marker location. */
+	locationAt(point: Point): Marker['location'] {
+		const at = this.toPage(point);
+		const clamp = (v: number) => Math.min(1, Math.max(0, v));
+		return { sheet: this.sheet, x: clamp(at.x), y: clamp(at.y) };
+	}
+
+	/** Place mode: a click (or Enter, at the view's centre) hands the location to the page. */
+	placeAt(point: Point, item: string | null = null) {
+		if (!this.view) return;
+		this.events.onplace?.(this.locationAt(point), item);
 	}
 
 	dropMarker(id: string) {

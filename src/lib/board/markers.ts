@@ -21,6 +21,9 @@ export interface Marker {
 	movable?: boolean;
 }
 
+/** The drag-and-drop type of an item dragged from beside the board onto a sheet (its id). */
+export const itemDragType = 'application/x-checkplate-item';
+
 /** A point marker's radius in CSS pixels, at any zoom. */
 export const markerRadius = 11;
 

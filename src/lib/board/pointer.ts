@@ -69,7 +69,9 @@ export class PointerInput {
 		const at = this.#local(event);
 		if (this.#drag && this.#travel > 2) this.board.dropMarker(this.#drag.marker.id);
 		else if (this.#travel <= 2 && this.#pointers.size === 0) {
-			this.board.select(this.board.markerAt(at)?.id ?? null);
+			const marker = this.board.markerAt(at);
+			if (!marker && this.board.placing) this.board.placeAt(at);
+			else this.board.select(marker?.id ?? null);
 		}
 		this.#drag = null;
 	};
@@ -86,7 +88,13 @@ export class PointerInput {
 		} else if (current?.marker.id !== marker.id) {
 			this.board.hovered = { marker, at: this.board.toScreen(marker.location) };
 		}
-		this.element.style.cursor = marker?.movable ? 'move' : marker ? 'pointer' : '';
+		this.element.style.cursor = marker?.movable
+			? 'move'
+			: marker
+				? 'pointer'
+				: this.board.placing
+					? 'crosshair'
+					: '';
 	}
 
 	wheel = (event: WheelEvent, factor: number) => {

@@ -237,3 +237,18 @@ export const sameView = (a: View, b: View) =>
 	Math.abs(a.zoom - b.zoom) < 1e-9 &&
 	Math.abs(a.centre.x - b.centre.x) < 1e-9 &&
 	Math.abs(a.centre.y - b.centre.y) < 1e-9;
+
+/**
+ * The view after the viewport changed size from `before` to `after` on its right and bottom
+ * edges (a side panel widening, say): what shows at the top-left stays where it is on screen.
+ */
+export function keepTopLeft(view: View, page: PageSize, before: Size, after: Size): View {
+	const scale = scaleOf(view.zoom);
+	return clampView({
+		zoom: view.zoom,
+		centre: {
+			x: view.centre.x + (after.width - before.width) / 2 / (page.width * scale),
+			y: view.centre.y + (after.height - before.height) / 2 / (page.height * scale)
+		}
+	});
+}

@@ -1,15 +1,19 @@
 import { error } from '@sveltejs/kit';
 import { z } from 'zod';
+import { firstIssue } from '$lib/schemas/calc';
 
 /**
- * Reads and validates a JSON body; a bad one is a 400 `invalid` naming the fields. Only a body
- * declared `application/json` is read (415 otherwise): a browser cannot send that cross-site
- * without a CORS preflight, which the app never grants.
+ * Reads a JSON body, and validates it given a schema; a bad one is a 400 `invalid` naming the
+ * fields. Only a body declared `application/json` is read (415 otherwise): a browser cannot send
+ * that cross-site without a CORS preflight, which the app never grants. The one way every API
+ * route (the calculator's too) reads JSON.
  */
+export async function readJson(request: Request): Promise<unknown>;
 export async function readJson<S extends z.ZodType>(
 	request: Request,
 	schema: S
-): Promise<z.infer<S>> {
+): Promise<z.infer<S>>;
+export async function readJson(request: Request, schema?: z.ZodType) {
 	requireJsonType(request);
 	let body: unknown;
 	try {
@@ -17,7 +21,7 @@ export async function readJson<S extends z.ZodType>(
 	} catch {
 		error(400, { message: 'The body must be JSON', code: 'invalid' });
 	}
-	return parseOrRefuse(schema, body);
+	return schema ? parseOrRefuse(schema, body) : body;
 }
 
 /** A body not declared `application/json` is a 415, before it is read. */
@@ -38,18 +42,24 @@ export function readQuery<S extends z.ZodType>(url: URL, schema: S): z.infer<S> 
 	return parseOrRefuse(schema, values);
 }
 
-function parseOrRefuse<S extends z.ZodType>(schema: S, input: unknown): z.infer<S> {
+/** Validates input against a schema; a bad one is the API's one 400 `invalid` shape. */
+export function parseOrRefuse<S extends z.ZodType>(schema: S, input: unknown): z.infer<S> {
 	const parsed = schema.safeParse(input);
-	if (!parsed.success) {
-		const fields = z.flattenError(parsed.error).fieldErrors as Record<string, string[]>;
-		const first = Object.entries(fields)[0];
-		error(400, {
-			message: first ? `${first[0]}: ${first[1][0]}` : parsed.error.issues[0]?.message,
-			code: 'invalid',
-			fields
-		} as App.Error);
-	}
+	if (!parsed.success) refuseInvalid(parsed.error);
 	return parsed.data;
+}
+
+/**
+ * The 400 for input a schema refused: the first issue as the message, `fields` (messages by
+ * top-level name) and `issues` (each with its full path).
+ */
+export function refuseInvalid(zodError: z.ZodError): never {
+	error(400, {
+		message: firstIssue(zodError),
+		code: 'invalid',
+		fields: z.flattenError(zodError).fieldErrors,
+		issues: zodError.issues
+	} as App.Error);
 }
 
 /** Ids in paths are UUIDs; anything else cannot name a row, so the route answers 404. */

@@ -1,4 +1,5 @@
 import { error, type Handle } from '@sveltejs/kit';
+import { RevisionFrozen, StaleWrite } from './db/queries/revision-writes';
 
 const codeForStatus: Record<number, string> = {
 	400: 'invalid',
@@ -72,3 +73,38 @@ export function refuse(refusal: { status: number; code: string; message: string 
 	delete body.ok;
 	error(status, body as App.Error);
 }
+
+/**
+ * The refusal for a write to a revision's content that lost (features, fits, …): the revision
+ * froze (409 `frozen`), the row changed meanwhile (409 `stale` with the current one, shown by
+ * `present`) or went (404 `not_found`). Any other error is thrown on.
+ */
+export async function writeRefusal<Row, Shown>(
+	err: unknown,
+	noun: string,
+	present: (row: Row) => Promise<Shown>
+) {
+	if (err instanceof RevisionFrozen) {
+		const { letter, state } = err.revision;
+		return refusal(409, 'frozen', `Revision ${letter} is ${state}: its ${noun}s no longer change.`);
+	}
+	if (err instanceof StaleWrite) {
+		const current = (err as StaleWrite<Row>).current;
+		if (!current) return refusal(404, 'not_found', `${err.message}.`);
+		return {
+			...refusal(
+				409,
+				'stale',
+				`${err.message}: your edit was not applied. Here is the current ${err.noun}.`
+			),
+			current: await present(current)
+		};
+	}
+	throw err;
+}
+
+const refusal = <S extends 404 | 409, C extends 'frozen' | 'stale' | 'not_found'>(
+	status: S,
+	code: C,
+	message: string
+) => ({ ok: false as const, status, code, message });

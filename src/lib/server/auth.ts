@@ -10,7 +10,7 @@ import { dev } from '$app/environment';
 import { env } from '$env/dynamic/private';
 import type { RequestEvent } from '@sveltejs/kit';
 import { config as settings } from './config';
-import { startDatabase } from './db';
+import { db } from './db';
 import { accounts, users, verificationTokens } from './db/schema';
 import { attemptWait, clearAttempts, recordAttempt, spendAttempt } from './db/queries/attempts';
 import type { Actor } from './db/queries/activity';
@@ -38,13 +38,11 @@ export const attemptKeys = (email: string, address: string) => [
 
 /** An e-mailed sign-in link counts against its address and the asking client's: seconds to wait. */
 export async function spendSignInLink(email: string, address: string) {
-	const { db } = await startDatabase();
 	return spendAttempt(db, 'link', attemptKeys(email, address));
 }
 
 /** Seconds before the next password sign-in on this account from this address may be tried. */
 export async function signInWait(email: string, address: string) {
-	const { db } = await startDatabase();
 	return attemptWait(db, 'sign-in', attemptKeys(email, address));
 }
 
@@ -60,7 +58,6 @@ let authConfig: AuthConfig | undefined;
 
 async function buildConfig(): Promise<AuthConfig> {
 	if (authConfig) return authConfig;
-	const { db } = await startDatabase();
 	authConfig = {
 		trustHost: dev || env.AUTH_TRUST_HOST === 'true',
 		secret: env.AUTH_SECRET,
@@ -205,7 +202,6 @@ export async function userFromSession(event: RequestEvent): Promise<CurrentUser 
 		({ user?: { id?: string }; generation?: number } & object) | null;
 	const id = session?.user?.id;
 	if (!id) return null;
-	const { db } = await startDatabase();
 	const user = await getUserById(db, id);
 	if (!user || user.sessionGeneration !== (session.generation ?? -1)) return null;
 	return { id: user.id, name: user.name, email: user.email };

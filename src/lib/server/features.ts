@@ -13,6 +13,7 @@ import {
 	type RulebookFeature,
 	type RulebookTeam
 } from '$lib/tolerance/rulebook';
+import { writeRefusal } from './api';
 import type { Db } from './db/connect';
 import type { Actor } from './db/queries/activity';
 import {
@@ -21,8 +22,6 @@ import {
 	deleteFeature,
 	FeatureInUse,
 	listFeatures,
-	RevisionFrozen,
-	StaleFeature,
 	storedFeature,
 	updateFeature
 } from './db/queries/features';
@@ -176,24 +175,10 @@ function checkValues(place: FeaturePlace, values: Parameters<typeof evaluation>[
 }
 
 async function refusalFor(db: Db, place: FeaturePlace, err: unknown): Promise<Refusal> {
-	if (err instanceof RevisionFrozen) {
-		return { ok: false, status: 409, code: 'frozen', message: `${err.message}.` };
-	}
 	if (err instanceof FeatureInUse) {
 		return { ok: false, status: 409, code: 'in_use', message: `${err.message}.`, fits: err.fitIds };
 	}
-	if (err instanceof StaleFeature) {
-		if (!err.current)
-			return { ok: false, status: 404, code: 'not_found', message: `${err.message}.` };
-		return {
-			ok: false,
-			status: 409,
-			code: 'stale',
-			message: `${err.message}: your edit was not applied. Here is the current feature.`,
-			current: await featureOf(db, place, err.current)
-		};
-	}
-	throw err;
+	return writeRefusal(err, 'feature', (row: FeatureRow) => featureOf(db, place, row));
 }
 
 export async function addFeature(

@@ -15,16 +15,15 @@ import {
 } from '$lib/tolerance/fit';
 import type { FitClassification } from '$lib/tolerance/iso286';
 import { sizeFindings } from '$lib/tolerance/rulebook';
+import { writeRefusal } from './api';
 import type { Db } from './db/connect';
 import type { Actor } from './db/queries/activity';
-import { RevisionFrozen } from './db/queries/features';
 import { isVisibleToSuppliers } from './db/queries/drawings';
 import {
 	createFit,
 	deleteFit,
 	listFits,
 	placedFeatures,
-	StaleFit,
 	storedFit,
 	updateFit,
 	type PlacedFeature
@@ -308,28 +307,8 @@ function summaryOf(m: Members, fastener: FitRow['fastener']) {
 	return `${describe(m.hole)} with ${other.trim()}`;
 }
 
-async function refusalFor(db: Db, place: FitPlace, err: unknown): Promise<FitRefusal> {
-	if (err instanceof RevisionFrozen) {
-		return {
-			ok: false,
-			status: 409,
-			code: 'frozen',
-			message: `Revision ${err.revision.letter} is ${err.revision.state}: its fits no longer change.`
-		};
-	}
-	if (err instanceof StaleFit) {
-		if (!err.current)
-			return { ok: false, status: 404, code: 'not_found', message: `${err.message}.` };
-		return {
-			ok: false,
-			status: 409,
-			code: 'stale',
-			message: `${err.message}: your edit was not applied. Here is the current fit.`,
-			current: await fitOf(db, place, err.current)
-		};
-	}
-	throw err;
-}
+const refusalFor = (db: Db, place: FitPlace, err: unknown): Promise<FitRefusal> =>
+	writeRefusal(err, 'fit', (row: FitRow) => fitOf(db, place, row));
 
 /**
  * Left out, the intent is read from the other member and the limits: a fastener floats, a

@@ -1,4 +1,4 @@
-import { randomUUID, createHash } from 'node:crypto';
+import { randomUUID } from 'node:crypto';
 import { createReadStream, createWriteStream } from 'node:fs';
 import { mkdir, rm } from 'node:fs/promises';
 import { join } from 'node:path';
@@ -17,7 +17,7 @@ import {
 } from './db/queries/drawings';
 import { config } from './config';
 import { inspectPdf } from './pdf';
-import type { Storage, StoredObject } from './storage';
+import { ByteTally, type Storage, type StoredObject } from './storage';
 import type { Actor } from './db/queries/activity';
 
 export interface Refusal {
@@ -78,8 +78,7 @@ async function copyFile(
 	path: string,
 	store?: { storage: Storage; key: string }
 ): Promise<Copied> {
-	const hash = createHash('sha256');
-	let size = 0;
+	const tally = new ByteTally();
 	const toStorage = store ? new PassThrough() : null;
 	const storing =
 		store && toStorage ? store.storage.put(store.key, toStorage, 'application/pdf') : null;
@@ -90,8 +89,7 @@ async function copyFile(
 			source,
 			async function* (chunks: AsyncIterable<Buffer>) {
 				for await (const chunk of chunks) {
-					hash.update(chunk);
-					size += chunk.length;
+					tally.add(chunk);
 					if (toStorage) {
 						if (toStorage.destroyed) throw toStorage.errored ?? new Error('Storage upload stopped');
 						if (!toStorage.write(chunk)) await drained(toStorage);
@@ -102,7 +100,11 @@ async function copyFile(
 			createWriteStream(path)
 		);
 		toStorage?.end();
-		return { size, sha256: hash.digest('hex'), stored: storing ? await storing : undefined };
+		return {
+			size: tally.size,
+			sha256: tally.sha256(),
+			stored: storing ? await storing : undefined
+		};
 	} catch (err) {
 		toStorage?.destroy(err as Error);
 		await storing?.catch(() => {});
@@ -291,12 +293,13 @@ export async function storeRevisionBytes(
 	await mkdir(tempDir, { recursive: true });
 	const path = join(tempDir, `${randomUUID()}.upload`);
 	await pipeline(Readable.from([Buffer.from(bytes)]), createWriteStream(path));
-	const sha256 = createHash('sha256').update(bytes).digest('hex');
+	const tally = new ByteTally();
+	tally.add(bytes);
 	return storeRevision(db, storage, actor, drawing, {
 		ok: true,
 		path,
-		size: bytes.length,
-		sha256,
+		size: tally.size,
+		sha256: tally.sha256(),
 		fields
 	});
 }

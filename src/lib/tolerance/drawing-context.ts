@@ -48,3 +48,14 @@ export interface DrawingContext {
 	/** Drawing notes; "PERFECT FORM AT MMC NOT REQD" lifts Rule #1. */
 	notes?: string;
 }
+
+/** A general tolerance as a title block would state it: `ISO 2768-mK`, `2 places ±0.01`. */
+export function describeGeneralTolerance(g: GeneralTolerance | null): string {
+	if (!g) return 'none stated';
+	if (g.kind === 'iso2768')
+		return `ISO 2768-${g.linear}${g.geometric ?? ''}${g.envelope ? '-E' : ''}`;
+	const byPlaces = Object.entries(g.byPlaces)
+		.map(([n, v]) => `${n} places ±${v}`)
+		.join(', ');
+	return `${byPlaces}${g.angle ? `, angles ±${g.angle}°` : ''}`;
+}

@@ -6,7 +6,20 @@ export type { Db } from './connect';
 
 let database: Database | undefined;
 
-/** Opens the process-wide database once; never while building. */
+const notStarted = new Proxy({} as Db, {
+	get() {
+		throw new Error('Database not started: init in hooks.server.ts has not run');
+	}
+});
+
+/**
+ * The app's database, the one way into it: every load, action, route and service passes `db`
+ * to the queries. It is the real client once `init` in hooks.server.ts has run
+ * `startDatabase()`; before that any use throws.
+ */
+export let db: Db = notStarted;
+
+/** Opens the process-wide database once (only `init` calls this); never while building. */
 export async function startDatabase(): Promise<Database> {
 	if (building) throw new Error('The database is not opened while building');
 	if (!database) {
@@ -15,17 +28,9 @@ export async function startDatabase(): Promise<Database> {
 			migrationUrl: env.MIGRATION_DATABASE_URL || undefined,
 			dataDir: env.DATA_DIR || './data'
 		});
+		db = database.db;
 		const opened = database;
 		process.once('sveltekit:shutdown', () => void opened.close());
 	}
 	return database;
 }
-
-/** The app's database. Valid after `init` in hooks.server.ts has run. */
-export const db: Db = new Proxy({} as Db, {
-	get(_target, property) {
-		if (!database) throw new Error('Database not started: init in hooks.server.ts has not run');
-		const value = Reflect.get(database.db as object, property);
-		return typeof value === 'function' ? value.bind(database.db) : value;
-	}
-});

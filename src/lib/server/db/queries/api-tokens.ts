@@ -1,10 +1,9 @@
-import { createHash, randomBytes } from 'node:crypto';
 import { and, desc, eq, isNull } from 'drizzle-orm';
 import type { Db } from '../connect';
 import { apiTokens, users } from '../schema';
+import { hashSecretToken, newSecretToken } from '../../secret-tokens';
 import { recordActivity, type Actor } from './activity';
 
-const hash = (token: string) => createHash('sha256').update(token).digest('hex');
 const prefix = 'cpt_';
 
 export async function createApiToken(
@@ -12,14 +11,14 @@ export async function createApiToken(
 	actor: Actor,
 	input: { name: string; expiresAt: Date | null }
 ) {
-	const token = prefix + randomBytes(32).toString('base64url');
+	const { token, hash } = newSecretToken(prefix);
 	return db.transaction(async (tx) => {
 		const [row] = await tx
 			.insert(apiTokens)
 			.values({
 				userId: actor.id,
 				name: input.name,
-				tokenHash: hash(token),
+				tokenHash: hash,
 				hint: token.slice(-4),
 				expiresAt: input.expiresAt
 			})
@@ -80,7 +79,7 @@ export async function userForApiToken(db: Db, token: string, now = new Date()) {
 		.select({ token: apiTokens, user: users })
 		.from(apiTokens)
 		.innerJoin(users, eq(users.id, apiTokens.userId))
-		.where(eq(apiTokens.tokenHash, hash(token)));
+		.where(eq(apiTokens.tokenHash, hashSecretToken(token)));
 	if (!row || row.token.revokedAt || (row.token.expiresAt && row.token.expiresAt <= now)) {
 		return null;
 	}

@@ -4,13 +4,12 @@ import {
 	drawings,
 	features,
 	fits,
-	isFrozen,
-	revisions,
 	type DrawingRow,
 	type FeatureRow,
 	type RevisionRow
 } from '../schema';
 import { recordActivity, type Actor } from './activity';
+import { lockOpenRevision, StaleWrite, writeOnRevision } from './revision-writes';
 
 export type FeatureValues = Omit<
 	typeof features.$inferInsert,
@@ -24,19 +23,12 @@ export type FeatureValues = Omit<
 	| 'updatedAt'
 >;
 
-export class RevisionFrozen extends Error {
-	constructor(readonly revision: RevisionRow) {
-		super(`Revision ${revision.letter} is ${revision.state}: its features no longer change`);
-	}
-}
-export class StaleFeature extends Error {
+export { RevisionFrozen, lockOpenRevision } from './revision-writes';
+
+export class StaleFeature extends StaleWrite<FeatureRow> {
 	/** `current` is null when the feature was deleted meanwhile. */
-	constructor(readonly current: FeatureRow | null) {
-		super(
-			current
-				? 'Someone changed this feature since you loaded it'
-				: 'Someone deleted this feature since you loaded it'
-		);
+	constructor(current: FeatureRow | null) {
+		super(current, 'feature');
 	}
 }
 
@@ -84,17 +76,6 @@ export function storedFeature(row: FeatureRow) {
 		notes: row.notes,
 		version: row.version
 	};
-}
-
-/** Locks the revision for the change and refuses a frozen one (approved, released). */
-export async function lockOpenRevision(tx: Db, revision: RevisionRow) {
-	const [locked] = await tx
-		.select()
-		.from(revisions)
-		.where(eq(revisions.id, revision.id))
-		.for('update');
-	if (isFrozen(locked.state)) throw new RevisionFrozen(locked);
-	return locked;
 }
 
 const name = (row: FeatureRow) => `feature ${row.balloon}${row.label ? ` (${row.label})` : ''}`;
@@ -165,27 +146,26 @@ export async function updateFeature(
 	version: number,
 	changes: Partial<FeatureValues>
 ) {
-	return db.transaction(async (tx) => {
-		await lockOpenRevision(tx, revision);
-		const [row] = await tx
-			.update(features)
-			.set({ ...changes, version: sql`${features.version} + 1`, updatedAt: new Date() })
-			.where(and(eq(features.id, feature.id), eq(features.version, version)))
-			.returning();
-		if (!row) throw new StaleFeature(await currentFeature(tx, feature.id));
-		await recordActivity(tx, {
-			teamId: drawing.teamId,
-			actor,
+	return writeOnRevision(
+		db,
+		{ actor, drawing, revision },
+		{
 			entity: 'feature',
-			entityId: row.id,
-			drawingId: drawing.id,
-			action: 'update',
-			summary: `edited ${name(row)} on revision ${revision.letter} of ${drawing.number}`,
-			before: storedFeature(feature),
-			after: storedFeature(row)
-		});
-		return row;
-	});
+			write: (tx) =>
+				tx
+					.update(features)
+					.set({ ...changes, version: sql`${features.version} + 1`, updatedAt: new Date() })
+					.where(and(eq(features.id, feature.id), eq(features.version, version)))
+					.returning(),
+			stale: async (tx) => new StaleFeature(await currentFeature(tx, feature.id)),
+			record: (row) => ({
+				action: 'update',
+				summary: `edited ${name(row)} on revision ${revision.letter} of ${drawing.number}`,
+				before: storedFeature(feature),
+				after: storedFeature(row)
+			})
+		}
+	);
 }
 
 export async function deleteFeature(
@@ -196,36 +176,37 @@ export async function deleteFeature(
 	feature: FeatureRow,
 	version: number
 ) {
-	return db.transaction(async (tx) => {
-		await lockOpenRevision(tx, revision);
-		const using = await tx
-			.select({ id: fits.id })
-			.from(fits)
-			.where(
-				or(
-					eq(fits.holeFeatureId, feature.id),
-					eq(fits.shaftFeatureId, feature.id),
-					eq(fits.fixedHoleFeatureId, feature.id)
-				)
-			);
-		if (using.length > 0) throw new FeatureInUse(using.map((f) => f.id));
-		const [row] = await tx
-			.delete(features)
-			.where(and(eq(features.id, feature.id), eq(features.version, version)))
-			.returning();
-		if (!row) throw new StaleFeature(await currentFeature(tx, feature.id));
-		await recordActivity(tx, {
-			teamId: drawing.teamId,
-			actor,
+	return writeOnRevision(
+		db,
+		{ actor, drawing, revision },
+		{
 			entity: 'feature',
-			entityId: row.id,
-			drawingId: drawing.id,
-			action: 'delete',
-			summary: `deleted ${name(row)} from revision ${revision.letter} of ${drawing.number}`,
-			before: storedFeature(row)
-		});
-		return row;
-	});
+			check: async (tx) => {
+				const using = await tx
+					.select({ id: fits.id })
+					.from(fits)
+					.where(
+						or(
+							eq(fits.holeFeatureId, feature.id),
+							eq(fits.shaftFeatureId, feature.id),
+							eq(fits.fixedHoleFeatureId, feature.id)
+						)
+					);
+				if (using.length > 0) throw new FeatureInUse(using.map((f) => f.id));
+			},
+			write: (tx) =>
+				tx
+					.delete(features)
+					.where(and(eq(features.id, feature.id), eq(features.version, version)))
+					.returning(),
+			stale: async (tx) => new StaleFeature(await currentFeature(tx, feature.id)),
+			record: (row) => ({
+				action: 'delete',
+				summary: `deleted ${name(row)} from revision ${revision.letter} of ${drawing.number}`,
+				before: storedFeature(row)
+			})
+		}
+	);
 }
 
 async function currentFeature(tx: Db, id: string) {

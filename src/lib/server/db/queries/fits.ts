@@ -10,22 +10,18 @@ import {
 	type FitRow,
 	type RevisionRow
 } from '../schema';
-import { recordActivity, type Actor } from './activity';
-import { lockOpenRevision } from './features';
+import type { Actor } from './activity';
+import { StaleWrite, writeOnRevision } from './revision-writes';
 
 export type FitValues = Omit<
 	typeof fits.$inferInsert,
 	'id' | 'teamId' | 'revisionId' | 'version' | 'createdBy' | 'createdAt' | 'updatedAt'
 >;
 
-export class StaleFit extends Error {
+export class StaleFit extends StaleWrite<FitRow> {
 	/** `current` is null when the fit was deleted meanwhile. */
-	constructor(readonly current: FitRow | null) {
-		super(
-			current
-				? 'Someone changed this fit since you loaded it'
-				: 'Someone deleted this fit since you loaded it'
-		);
+	constructor(current: FitRow | null) {
+		super(current, 'fit');
 	}
 }
 
@@ -102,24 +98,28 @@ export async function createFit(
 	values: FitValues,
 	summary: string
 ) {
-	return db.transaction(async (tx) => {
-		await lockOpenRevision(tx, revision);
-		const [row] = await tx
-			.insert(fits)
-			.values({ ...values, teamId: drawing.teamId, revisionId: revision.id, createdBy: actor.id })
-			.returning();
-		await recordActivity(tx, {
-			teamId: drawing.teamId,
-			actor,
+	return writeOnRevision(
+		db,
+		{ actor, drawing, revision },
+		{
 			entity: 'fit',
-			entityId: row.id,
-			drawingId: drawing.id,
-			action: 'create',
-			summary: `added the fit ${summary} on ${where(revision, drawing)}`,
-			after: storedFit(row)
-		});
-		return row;
-	});
+			write: (tx) =>
+				tx
+					.insert(fits)
+					.values({
+						...values,
+						teamId: drawing.teamId,
+						revisionId: revision.id,
+						createdBy: actor.id
+					})
+					.returning(),
+			record: (row) => ({
+				action: 'create',
+				summary: `added the fit ${summary} on ${where(revision, drawing)}`,
+				after: storedFit(row)
+			})
+		}
+	);
 }
 
 /** Applies an edit made against `version`; a stale one throws with the current fit. */
@@ -133,27 +133,26 @@ export async function updateFit(
 	changes: Partial<FitValues>,
 	summary: string
 ) {
-	return db.transaction(async (tx) => {
-		await lockOpenRevision(tx, revision);
-		const [row] = await tx
-			.update(fits)
-			.set({ ...changes, version: fit.version + 1, updatedAt: new Date() })
-			.where(and(eq(fits.id, fit.id), eq(fits.version, version)))
-			.returning();
-		if (!row) throw new StaleFit(await currentFit(tx, fit.id));
-		await recordActivity(tx, {
-			teamId: drawing.teamId,
-			actor,
+	return writeOnRevision(
+		db,
+		{ actor, drawing, revision },
+		{
 			entity: 'fit',
-			entityId: row.id,
-			drawingId: drawing.id,
-			action: 'update',
-			summary: `edited the fit ${summary} on ${where(revision, drawing)}`,
-			before: storedFit(fit),
-			after: storedFit(row)
-		});
-		return row;
-	});
+			write: (tx) =>
+				tx
+					.update(fits)
+					.set({ ...changes, version: fit.version + 1, updatedAt: new Date() })
+					.where(and(eq(fits.id, fit.id), eq(fits.version, version)))
+					.returning(),
+			stale: async (tx) => new StaleFit(await currentFit(tx, fit.id)),
+			record: (row) => ({
+				action: 'update',
+				summary: `edited the fit ${summary} on ${where(revision, drawing)}`,
+				before: storedFit(fit),
+				after: storedFit(row)
+			})
+		}
+	);
 }
 
 export async function deleteFit(
@@ -165,25 +164,24 @@ export async function deleteFit(
 	version: number,
 	summary: string
 ) {
-	return db.transaction(async (tx) => {
-		await lockOpenRevision(tx, revision);
-		const [row] = await tx
-			.delete(fits)
-			.where(and(eq(fits.id, fit.id), eq(fits.version, version)))
-			.returning();
-		if (!row) throw new StaleFit(await currentFit(tx, fit.id));
-		await recordActivity(tx, {
-			teamId: drawing.teamId,
-			actor,
+	return writeOnRevision(
+		db,
+		{ actor, drawing, revision },
+		{
 			entity: 'fit',
-			entityId: row.id,
-			drawingId: drawing.id,
-			action: 'delete',
-			summary: `deleted the fit ${summary} from ${where(revision, drawing)}`,
-			before: storedFit(row)
-		});
-		return row;
-	});
+			write: (tx) =>
+				tx
+					.delete(fits)
+					.where(and(eq(fits.id, fit.id), eq(fits.version, version)))
+					.returning(),
+			stale: async (tx) => new StaleFit(await currentFit(tx, fit.id)),
+			record: (row) => ({
+				action: 'delete',
+				summary: `deleted the fit ${summary} from ${where(revision, drawing)}`,
+				before: storedFit(row)
+			})
+		}
+	);
 }
 
 async function currentFit(tx: Db, id: string) {

@@ -1,13 +1,12 @@
-import { createHash, randomBytes } from 'node:crypto';
 import { and, desc, eq, gt, isNotNull, isNull, or } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import type { Db } from '../connect';
 import { invitations, teams, users, type Role } from '../schema';
+import { hashSecretToken, newSecretToken } from '../../secret-tokens';
 import { recordActivity, type Actor } from './activity';
 import { addMember, withdrawInvitations } from './teams';
 import { getUserById, normaliseEmail } from './users';
 
-const hash = (token: string) => createHash('sha256').update(token).digest('hex');
 export const invitationLifetimeMs = 7 * 24 * 60 * 60_000;
 
 export async function createInvitation(
@@ -16,7 +15,7 @@ export async function createInvitation(
 	teamId: string,
 	input: { email: string; role: Role }
 ) {
-	const token = randomBytes(32).toString('base64url');
+	const { token, hash } = newSecretToken();
 	const email = normaliseEmail(input.email);
 	const invitation = await db.transaction(async (tx) => {
 		const [row] = await tx
@@ -25,7 +24,7 @@ export async function createInvitation(
 				teamId,
 				email,
 				role: input.role,
-				tokenHash: hash(token),
+				tokenHash: hash,
 				invitedBy: actor.id,
 				expiresAt: new Date(Date.now() + invitationLifetimeMs)
 			})
@@ -89,7 +88,7 @@ export async function findInvitation(
 		.select({ invitation: invitations, teamName: teams.name, teamSlug: teams.slug })
 		.from(invitations)
 		.innerJoin(teams, eq(teams.id, invitations.teamId))
-		.where(eq(invitations.tokenHash, hash(token)));
+		.where(eq(invitations.tokenHash, hashSecretToken(token)));
 	if (!row || row.invitation.revokedAt) return { ok: false, reason: 'invalid' };
 	if (row.invitation.acceptedAt) return { ok: false, reason: 'used' };
 	if (row.invitation.expiresAt <= now) return { ok: false, reason: 'expired' };
@@ -118,7 +117,7 @@ export async function acceptInvitation(
 			.set({ acceptedAt: now, acceptedBy: user.id })
 			.where(
 				and(
-					eq(invitations.tokenHash, hash(token)),
+					eq(invitations.tokenHash, hashSecretToken(token)),
 					eq(invitations.email, normaliseEmail(user.email)),
 					openAt(now)
 				)
@@ -134,7 +133,7 @@ export async function acceptInvitation(
 			.set({ requestedBy: user.id, requestedAt: now })
 			.where(
 				and(
-					eq(invitations.tokenHash, hash(token)),
+					eq(invitations.tokenHash, hashSecretToken(token)),
 					openAt(now),
 					or(isNull(invitations.requestedBy), eq(invitations.requestedBy, user.id))
 				)

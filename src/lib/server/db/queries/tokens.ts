@@ -1,19 +1,17 @@
-import { createHash, randomBytes } from 'node:crypto';
 import { and, eq, isNull } from 'drizzle-orm';
 import type { Db } from '../connect';
 import { userTokens } from '../schema';
+import { hashSecretToken, newSecretToken } from '../../secret-tokens';
 
 type Purpose = (typeof userTokens.$inferInsert)['purpose'];
 
-const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
-
 /** A fresh random secret for the link; only its hash is stored. */
 export async function issueUserToken(db: Db, userId: string, purpose: Purpose, ttlMs: number) {
-	const token = randomBytes(32).toString('base64url');
+	const { token, hash } = newSecretToken();
 	await db.insert(userTokens).values({
 		userId,
 		purpose,
-		tokenHash: hashToken(token),
+		tokenHash: hash,
 		expiresAt: new Date(Date.now() + ttlMs)
 	});
 	return token;
@@ -32,7 +30,7 @@ export async function peekUserToken(
 	const [row] = await db
 		.select({ usedAt: userTokens.usedAt, expiresAt: userTokens.expiresAt })
 		.from(userTokens)
-		.where(and(eq(userTokens.tokenHash, hashToken(token)), eq(userTokens.purpose, purpose)));
+		.where(and(eq(userTokens.tokenHash, hashSecretToken(token)), eq(userTokens.purpose, purpose)));
 	if (!row || row.usedAt) return { ok: false, reason: 'invalid' };
 	if (row.expiresAt <= now) return { ok: false, reason: 'expired' };
 	return { ok: true };
@@ -48,7 +46,7 @@ export async function consumeUserToken(
 	purpose: Purpose,
 	now = new Date()
 ): Promise<ConsumeResult> {
-	const tokenHash = hashToken(token);
+	const tokenHash = hashSecretToken(token);
 	const [row] = await db
 		.select()
 		.from(userTokens)

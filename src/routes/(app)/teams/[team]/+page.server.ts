@@ -1,7 +1,12 @@
 import { redirect } from '@sveltejs/kit';
 import { can } from '$lib/server/capabilities';
 import { db } from '$lib/server/db';
-import { createDrawing, DrawingNumberTaken, listDrawings } from '$lib/server/db/queries/drawings';
+import {
+	createDrawing,
+	DrawingNumberTaken,
+	listDrawings,
+	publicDrawing
+} from '$lib/server/db/queries/drawings';
 import { readDrawingForm } from '$lib/server/drawing-forms';
 import { refuseForm } from '$lib/server/forms';
 import { requireMember } from '$lib/server/guards';
@@ -14,11 +19,7 @@ export const load: PageServerLoad = async ({ params }) => {
 	});
 	return {
 		drawings: drawings.map((d) => ({
-			number: d.number,
-			title: d.title,
-			partName: d.partName,
-			units: d.units,
-			standard: d.standard,
+			...publicDrawing(d),
 			latest: d.latest,
 			updatedAt: d.updatedAt
 		}))

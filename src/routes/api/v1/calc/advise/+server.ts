@@ -1,5 +1,6 @@
 import { json } from '@sveltejs/kit';
-import { calcAdvise, readJson } from '$lib/calc-api';
+import { calcAdvise } from '$lib/calc-api';
+import { readJson } from '$lib/server/api-input';
 import type { RequestHandler } from './$types';
 
 export const POST: RequestHandler = async ({ request }) =>

@@ -1,5 +1,6 @@
 import { json } from '@sveltejs/kit';
-import { calcSize, readJson } from '$lib/calc-api';
+import { calcSize } from '$lib/calc-api';
+import { readJson } from '$lib/server/api-input';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = ({ url }) =>

@@ -2,7 +2,13 @@ import { fail } from '@sveltejs/kit';
 import { can } from '$lib/server/capabilities';
 import { config } from '$lib/server/config';
 import { db } from '$lib/server/db';
-import { listRevisions, StaleEdit, updateDrawing } from '$lib/server/db/queries/drawings';
+import {
+	listRevisions,
+	publicDrawing,
+	publicRevision,
+	StaleEdit,
+	updateDrawing
+} from '$lib/server/db/queries/drawings';
 import { readDrawingForm } from '$lib/server/drawing-forms';
 import { requireDrawing } from '$lib/server/drawings';
 import { refuseForm } from '$lib/server/forms';
@@ -17,26 +23,10 @@ export const load: PageServerLoad = async ({ params }) => {
 	);
 	const revisions = await listRevisions(db, drawing.id, { releasedOnly });
 	return {
-		drawing: {
-			number: drawing.number,
-			title: drawing.title,
-			partName: drawing.partName,
-			material: drawing.material,
-			units: drawing.units,
-			standard: drawing.standard,
-			generalTolerance: drawing.generalTolerance,
-			notes: drawing.notes,
-			version: drawing.version
-		},
+		drawing: publicDrawing(drawing),
 		revisions: revisions.map(({ revision, uploadedByName }) => ({
-			letter: revision.letter,
-			reason: revision.reason,
-			state: revision.state,
-			pages: revision.pages,
-			size: revision.size,
-			sha256: revision.sha256,
-			uploadedByName,
-			createdAt: revision.createdAt
+			...publicRevision(revision),
+			uploadedByName
 		})),
 		nextLetter: nextRevisionLetter(revisions.map((r) => r.revision.letter)),
 		mayAuthor: can(membership.role, 'author'),

@@ -1,0 +1,86 @@
+/*
+ * Writes to what a revision holds (features, fits, and next findings and comments): each runs
+ * in one transaction that locks the revision and refuses a frozen one, checks the version the
+ * writer saw, and records the change on the activity trail.
+ */
+import { eq } from 'drizzle-orm';
+import type { Db } from '../connect';
+import { isFrozen, revisions, type DrawingRow, type RevisionRow } from '../schema';
+import { recordActivity, type ActivityEntry, type Actor } from './activity';
+
+export class RevisionFrozen extends Error {
+	constructor(readonly revision: RevisionRow) {
+		super(`Revision ${revision.letter} is ${revision.state}: its features no longer change`);
+	}
+}
+
+/** An edit made against a version that is gone: `current` is the row now, null when deleted. */
+export class StaleWrite<Row> extends Error {
+	constructor(
+		readonly current: Row | null,
+		readonly noun: string
+	) {
+		super(
+			current
+				? `Someone changed this ${noun} since you loaded it`
+				: `Someone deleted this ${noun} since you loaded it`
+		);
+	}
+}
+
+/** Locks the revision for the change and refuses a frozen one (approved, released). */
+export async function lockOpenRevision(tx: Db, revision: RevisionRow) {
+	const [locked] = await tx
+		.select()
+		.from(revisions)
+		.where(eq(revisions.id, revision.id))
+		.for('update');
+	if (isFrozen(locked.state)) throw new RevisionFrozen(locked);
+	return locked;
+}
+
+/** Who writes, and on which revision of which drawing. */
+export interface RevisionPlace {
+	actor: Actor;
+	drawing: DrawingRow;
+	revision: RevisionRow;
+}
+
+export interface RevisionWrite<Row extends { id: string }> {
+	/** The trail's name for the row: `feature`, `fit`, … */
+	entity: string;
+	/** Checks under the lock before the write; throws to refuse. */
+	check?: (tx: Db) => Promise<void>;
+	/** The write (`… .returning()`); no row back means the version it was made against is gone. */
+	write: (tx: Db) => Promise<Row[]>;
+	/** The error for a write that found no row at its version (a `StaleWrite`). */
+	stale?: (tx: Db) => Promise<Error>;
+	/** What the trail records of the written row. */
+	record: (row: Row) => Pick<ActivityEntry, 'action' | 'summary' | 'before' | 'after'>;
+}
+
+/**
+ * One change to a revision's content in one transaction: lock the revision (refusing a frozen
+ * one), check, write with the version check, record it on the trail. Returns the written row.
+ */
+export async function writeOnRevision<Row extends { id: string }>(
+	db: Db,
+	{ actor, drawing, revision }: RevisionPlace,
+	change: RevisionWrite<Row>
+): Promise<Row> {
+	return db.transaction(async (tx) => {
+		await lockOpenRevision(tx, revision);
+		await change.check?.(tx);
+		const [row] = await change.write(tx);
+		if (!row) throw (await change.stale?.(tx)) ?? new Error(`The ${change.entity} was not written`);
+		await recordActivity(tx, {
+			teamId: drawing.teamId,
+			actor,
+			entity: change.entity,
+			entityId: row.id,
+			drawingId: drawing.id,
+			...change.record(row)
+		});
+		return row;
+	});
+}
