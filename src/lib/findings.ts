@@ -84,3 +84,30 @@ export type NewFinding = z.input<typeof findingInput>;
 export type FindingChanges = z.input<typeof findingPatch>;
 /** One comment of a thread. */
 export type CommentJson = z.output<typeof commentResponse>;
+
+/** How long after posting a comment its author may still edit it. */
+export const commentEditMinutes = 10;
+export const canStillEdit = (createdAt: Date | string, now = Date.now()) =>
+	now - new Date(createdAt).getTime() <= commentEditMinutes * 60_000;
+
+/** Counts of findings by state and by severity, all and open only (the revision's summary). */
+export function countFindings(list: readonly { state: FindingState; severity: Severity }[]) {
+	const zero = <K extends string>(keys: readonly K[]) =>
+		Object.fromEntries(keys.map((k) => [k, 0])) as Record<K, number>;
+	const counts = {
+		total: list.length,
+		open: 0,
+		byState: zero(findingStates),
+		bySeverity: zero(severities),
+		openBySeverity: zero(severities)
+	};
+	for (const f of list) {
+		counts.byState[f.state] += 1;
+		counts.bySeverity[f.severity] += 1;
+		if (isOpen(f.state)) {
+			counts.open += 1;
+			counts.openBySeverity[f.severity] += 1;
+		}
+	}
+	return counts;
+}

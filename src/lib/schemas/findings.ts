@@ -34,15 +34,13 @@ const message = z.string().trim().max(10_000, { error: 'A message is at most 10,
 export const findingPatch = z
 	.object({
 		version: z.number().int().positive({ error: 'Send the version you changed' }),
-		state: z.enum(findingStates, { error: `state is one of ${findingStates.join(', ')}` }).optional(),
+		state: z
+			.enum(findingStates, { error: `state is one of ${findingStates.join(', ')}` })
+			.optional(),
 		message: message.optional(),
 		waiver: z
 			.object({
-				reason: z
-					.string()
-					.trim()
-					.min(1, { error: 'Say why the finding is waived' })
-					.max(10_000)
+				reason: z.string().trim().min(1, { error: 'Say why the finding is waived' }).max(10_000)
 			})
 			.strict()
 			.nullable()
@@ -89,7 +87,9 @@ export const findingQuery = z.object({
 	state: list(findingStates, ['open']).optional(),
 	severity: list(severities).optional(),
 	/** A member's id, or `none` for findings nobody is assigned. */
-	assigneeId: z.union([z.uuid(), z.literal('none')], { error: "A member's id, or none" }).optional(),
+	assigneeId: z
+		.union([z.uuid(), z.literal('none')], { error: "A member's id, or none" })
+		.optional(),
 	rule: z
 		.string()
 		.trim()

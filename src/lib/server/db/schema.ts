@@ -502,10 +502,7 @@ export const comments = pgTable(
 	(table) => [
 		index('comments_finding_idx').on(table.findingId, table.createdAt),
 		index('comments_feature_idx').on(table.featureId, table.createdAt),
-		check(
-			'comments_one_subject',
-			sql`(${table.findingId} is null) <> (${table.featureId} is null)`
-		)
+		check('comments_one_subject', sql`(${table.findingId} is null) <> (${table.featureId} is null)`)
 	]
 );
 

@@ -1,0 +1,251 @@
+import { and, asc, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm';
+import { canMove, openStates, type FindingState } from '$lib/findings';
+import type { FindingQuery } from '$lib/schemas/findings';
+import type { Db } from '../connect';
+import {
+	drawings,
+	findingMoves,
+	findings,
+	users,
+	type DrawingRow,
+	type FindingRow,
+	type RevisionRow
+} from '../schema';
+import { recordActivity, type Actor } from './activity';
+import { lockOpenRevision } from './features';
+
+export type FindingValues = Omit<
+	typeof findings.$inferInsert,
+	| 'id'
+	| 'teamId'
+	| 'drawingId'
+	| 'revisionId'
+	| 'number'
+	| 'state'
+	| 'version'
+	| 'raisedBy'
+	| 'createdAt'
+	| 'updatedAt'
+>;
+
+export class StaleFinding extends Error {
+	constructor(readonly current: FindingRow) {
+		super('Someone changed this finding since you loaded it');
+	}
+}
+
+/** A state change the machine does not have (PRODUCT.md §3). */
+export class InvalidMove extends Error {
+	constructor(
+		readonly current: FindingRow,
+		readonly to: FindingState
+	) {
+		super(`A ${current.state} finding cannot become ${to}`);
+	}
+}
+
+/** The revision's findings matching every filter given, by number. */
+export async function listFindings(db: Db, revisionId: string, query: FindingQuery = {}) {
+	const where: (SQL | undefined)[] = [eq(findings.revisionId, revisionId)];
+	if (query.kind) where.push(eq(findings.kind, query.kind));
+	if (query.state) {
+		const states = query.state.flatMap((s) => (s === 'open' ? openStates : [s as FindingState]));
+		where.push(inArray(findings.state, states));
+	}
+	if (query.severity)
+		where.push(inArray(findings.severity, query.severity as FindingRow['severity'][]));
+	if (query.assigneeId === 'none') where.push(isNull(findings.assigneeId));
+	else if (query.assigneeId) where.push(eq(findings.assigneeId, query.assigneeId));
+	if (query.rule) where.push(eq(findings.rule, query.rule));
+	if (query.featureId) where.push(eq(findings.featureId, query.featureId));
+	if (query.fitId) where.push(eq(findings.fitId, query.fitId));
+	return db
+		.select()
+		.from(findings)
+		.where(and(...where))
+		.orderBy(asc(findings.number));
+}
+
+export async function getFinding(db: Db, revisionId: string, id: string) {
+	const [row] = await db
+		.select()
+		.from(findings)
+		.where(and(eq(findings.revisionId, revisionId), eq(findings.id, id)));
+	return row ?? null;
+}
+
+export async function getFindingByNumber(db: Db, revisionId: string, number: number) {
+	const [row] = await db
+		.select()
+		.from(findings)
+		.where(and(eq(findings.revisionId, revisionId), eq(findings.number, number)));
+	return row ?? null;
+}
+
+/** A finding's state changes, oldest first, with who made each. */
+export async function listMoves(db: Db, findingId: string) {
+	return db
+		.select({
+			from: findingMoves.from,
+			to: findingMoves.to,
+			message: findingMoves.message,
+			by: findingMoves.byId,
+			byName: sql<string | null>`coalesce(${users.name}, ${users.email})`,
+			at: findingMoves.at
+		})
+		.from(findingMoves)
+		.leftJoin(users, eq(users.id, findingMoves.byId))
+		.where(eq(findingMoves.findingId, findingId))
+		.orderBy(asc(findingMoves.id));
+}
+
+/** The stored record as the trail keeps it (before and after). */
+export function storedFinding(row: FindingRow) {
+	return {
+		id: row.id,
+		number: row.number,
+		kind: row.kind,
+		rule: row.rule ?? null,
+		severity: row.severity,
+		state: row.state,
+		text: row.text,
+		featureId: row.featureId ?? null,
+		fitId: row.fitId ?? null,
+		assigneeId: row.assigneeId ?? null,
+		raisedBy: row.raisedBy ?? null,
+		location: row.location ?? null,
+		waiver: row.waiver ?? null,
+		carried: row.carried ?? null,
+		version: row.version
+	};
+}
+
+const name = (row: FindingRow) => `F-${row.number}`;
+const where = (revision: RevisionRow, drawing: DrawingRow) =>
+	`revision ${revision.letter} of ${drawing.number}`;
+
+/** Raises a finding with the drawing's next finding number: counted, never reused. */
+export async function createFinding(
+	db: Db,
+	actor: Actor,
+	drawing: DrawingRow,
+	revision: RevisionRow,
+	values: FindingValues
+) {
+	return db.transaction(async (tx) => {
+		await lockOpenRevision(tx, revision);
+		const [counter] = await tx
+			.update(drawings)
+			.set({ nextFinding: sql`${drawings.nextFinding} + 1` })
+			.where(eq(drawings.id, drawing.id))
+			.returning({ next: drawings.nextFinding });
+		const [row] = await tx
+			.insert(findings)
+			.values({
+				...values,
+				teamId: drawing.teamId,
+				drawingId: drawing.id,
+				revisionId: revision.id,
+				number: counter.next - 1,
+				raisedBy: actor.id
+			})
+			.returning();
+		await recordActivity(tx, {
+			teamId: drawing.teamId,
+			actor,
+			entity: 'finding',
+			entityId: row.id,
+			drawingId: drawing.id,
+			action: 'create',
+			summary: `raised ${name(row)} (${row.severity}) on ${where(revision, drawing)}`,
+			after: storedFinding(row)
+		});
+		return row;
+	});
+}
+
+/**
+ * Locks the finding for a change made against `version` on an open revision; a stale version
+ * throws with the current finding.
+ */
+async function lockFinding(tx: Db, revision: RevisionRow, finding: FindingRow, version: number) {
+	await lockOpenRevision(tx, revision);
+	const [current] = await tx
+		.select()
+		.from(findings)
+		.where(eq(findings.id, finding.id))
+		.for('update');
+	if (current.version !== version) throw new StaleFinding(current);
+	return current;
+}
+
+/** Edits the finding's fields or its waiver, made against `version`. */
+export async function updateFinding(
+	db: Db,
+	actor: Actor,
+	drawing: DrawingRow,
+	revision: RevisionRow,
+	finding: FindingRow,
+	version: number,
+	changes: Partial<FindingValues>,
+	action: 'update' | 'waive' | 'unwaive' = 'update'
+) {
+	return db.transaction(async (tx) => {
+		const before = await lockFinding(tx, revision, finding, version);
+		const [row] = await tx
+			.update(findings)
+			.set({ ...changes, version: sql`${findings.version} + 1`, updatedAt: new Date() })
+			.where(eq(findings.id, finding.id))
+			.returning();
+		const verb = { update: 'edited', waive: 'waived', unwaive: 'took back the waiver of' }[action];
+		await recordActivity(tx, {
+			teamId: drawing.teamId,
+			actor,
+			entity: 'finding',
+			entityId: row.id,
+			drawingId: drawing.id,
+			action,
+			summary: `${verb} ${name(row)} on ${where(revision, drawing)}`,
+			before: storedFinding(before),
+			after: storedFinding(row)
+		});
+		return row;
+	});
+}
+
+/** Moves the finding to `to` if the machine has that move from its current state. */
+export async function moveFinding(
+	db: Db,
+	actor: Actor,
+	drawing: DrawingRow,
+	revision: RevisionRow,
+	finding: FindingRow,
+	version: number,
+	to: FindingState,
+	message: string
+) {
+	return db.transaction(async (tx) => {
+		const before = await lockFinding(tx, revision, finding, version);
+		if (!canMove(before.state, to)) throw new InvalidMove(before, to);
+		const [row] = await tx
+			.update(findings)
+			.set({ state: to, version: sql`${findings.version} + 1`, updatedAt: new Date() })
+			.where(eq(findings.id, finding.id))
+			.returning();
+		await tx
+			.insert(findingMoves)
+			.values({ findingId: row.id, from: before.state, to, message, byId: actor.id });
+		await recordActivity(tx, {
+			teamId: drawing.teamId,
+			actor,
+			entity: 'finding',
+			entityId: row.id,
+			drawingId: drawing.id,
+			action: 'state',
+			summary: `moved ${name(row)} from ${before.state} to ${to} on ${where(revision, drawing)}${message ? `: ${message}` : ''}`,
+			before: storedFinding(before),
+			after: { ...storedFinding(row), message }
+		});
+		return row;
+	});
+}

@@ -1,0 +1,281 @@
+/*
+ * Findings on a revision (PRODUCT.md §3): the service behind the JSON routes and the pages'
+ * form actions. Callers check that the asker may see the revision (`requireRevision`); these
+ * functions check the rest — what the asker's role may do to this finding, that the feature,
+ * fit and assignee exist in the team, that the machine has the move, that the revision is not
+ * frozen and the version is current — and answer an outcome either way.
+ */
+import {
+	findingName,
+	isOpen,
+	moveNames,
+	needsMessage,
+	type FindingJson,
+	type FindingState
+} from '$lib/findings';
+import type { FindingInput, FindingPatch, FindingQuery } from '$lib/schemas/findings';
+import { can } from './capabilities';
+import type { Db } from './db/connect';
+import type { Actor } from './db/queries/activity';
+import { getFeature, RevisionFrozen } from './db/queries/features';
+import {
+	createFinding,
+	InvalidMove,
+	listFindings,
+	listMoves,
+	moveFinding,
+	StaleFinding,
+	storedFinding,
+	updateFinding,
+	type FindingValues
+} from './db/queries/findings';
+import { getFit } from './db/queries/fits';
+import { getMembership } from './db/queries/teams';
+import { roleLabels } from '$lib/roles';
+import type { DrawingRow, FindingRow, RevisionRow, Role, TeamRow } from './db/schema';
+import { checkLocation } from './features';
+
+/** Where a finding sits: its team, drawing and revision. */
+export interface FindingPlace {
+	team: Pick<TeamRow, 'id'>;
+	drawing: DrawingRow;
+	revision: RevisionRow;
+}
+
+/** Who asks: the signed-in user and their role in the team. */
+export interface Asker {
+	user: Actor;
+	role: Role;
+}
+
+export type FindingRefusal = {
+	ok: false;
+	status: 400 | 403 | 404 | 409;
+	code: 'invalid' | 'forbidden' | 'not_found' | 'stale' | 'frozen' | 'invalid_transition';
+	message: string;
+	field?: string;
+	current?: FindingJson;
+};
+export type FindingOutcome = { ok: true; finding: FindingJson } | FindingRefusal;
+
+type Moves = Awaited<ReturnType<typeof listMoves>>;
+
+function findingJson(row: FindingRow, moves?: Moves): FindingJson {
+	return {
+		...storedFinding(row),
+		createdAt: row.createdAt.toISOString(),
+		updatedAt: row.updatedAt.toISOString(),
+		...(moves && {
+			history: moves.map((m) => ({ ...m, at: m.at.toISOString() }))
+		})
+	};
+}
+
+/** The revision's findings matching the filters, by number. */
+export async function findingsOf(db: Db, place: FindingPlace, query: FindingQuery = {}) {
+	return (await listFindings(db, place.revision.id, query)).map((row) => findingJson(row));
+}
+
+/** One finding with its history of state changes. */
+export async function findingOf(db: Db, row: FindingRow) {
+	return findingJson(row, await listMoves(db, row.id));
+}
+
+const invalid = (field: string, message: string): FindingRefusal => ({
+	ok: false,
+	status: 400,
+	code: 'invalid',
+	message: `${field}: ${message}`,
+	field
+});
+
+const forbidden = (message: string): FindingRefusal => ({
+	ok: false,
+	status: 403,
+	code: 'forbidden',
+	message
+});
+
+/** The feature and fit are of this revision, the assignee a member who may answer. */
+async function checkReferences(
+	db: Db,
+	place: FindingPlace,
+	values: Partial<Pick<FindingInput, 'featureId' | 'fitId' | 'assigneeId' | 'location'>>
+): Promise<FindingRefusal | null> {
+	const where = `revision ${place.revision.letter}`;
+	if (values.location) {
+		const bad = checkLocation(place, values.location);
+		if (bad) return invalid('location', bad.message.replace(/^location: /, ''));
+	}
+	if (values.featureId && !(await getFeature(db, place.revision.id, values.featureId))) {
+		return invalid('featureId', `no feature of ${where} has this id`);
+	}
+	if (values.fitId && !(await getFit(db, place.revision.id, values.fitId))) {
+		return invalid('fitId', `no fit listed on ${where} has this id`);
+	}
+	if (values.assigneeId) {
+		const member = await getMembership(db, place.team.id, values.assigneeId);
+		if (!member) return invalid('assigneeId', 'not a member of this team');
+		if (!can(member.role, 'answerFindings')) {
+			return invalid(
+				'assigneeId',
+				`this member's role (${roleLabels[member.role]}) does not answer findings`
+			);
+		}
+	}
+	return null;
+}
+
+async function refusalFor(db: Db, err: unknown): Promise<FindingRefusal> {
+	if (err instanceof RevisionFrozen) {
+		return { ok: false, status: 409, code: 'frozen', message: `${err.message}.` };
+	}
+	if (err instanceof StaleFinding) {
+		return {
+			ok: false,
+			status: 409,
+			code: 'stale',
+			message: `${err.message}: your change was not applied. Here is the current finding.`,
+			current: await findingOf(db, err.current)
+		};
+	}
+	if (err instanceof InvalidMove) {
+		return {
+			ok: false,
+			status: 409,
+			code: 'invalid_transition',
+			message: `${err.message}.`,
+			current: await findingOf(db, err.current)
+		};
+	}
+	throw err;
+}
+
+/** Raises a manual finding with the drawing's next number. */
+export async function raiseFinding(
+	db: Db,
+	actor: Actor,
+	place: FindingPlace,
+	input: FindingInput
+): Promise<FindingOutcome> {
+	const bad = await checkReferences(db, place, input);
+	if (bad) return bad;
+	try {
+		const row = await createFinding(db, actor, place.drawing, place.revision, {
+			...input,
+			kind: 'manual'
+		});
+		return { ok: true, finding: await findingOf(db, row) };
+	} catch (err) {
+		return refusalFor(db, err);
+	}
+}
+
+/** What the asker's role allows on this finding: a refusal, or null when the move is theirs. */
+function moveRefusal(asker: Asker, finding: FindingRow, to: FindingState): FindingRefusal | null {
+	const move = moveNames[to];
+	if (to === 'answered') {
+		if (!can(asker.role, 'answerFindings')) {
+			return forbidden(`Your role (${roleLabels[asker.role]}) does not answer findings`);
+		}
+		if (finding.assigneeId && finding.assigneeId !== asker.user.id) {
+			return forbidden(`${findingName(finding.number)} is assigned to someone else to answer`);
+		}
+		return null;
+	}
+	if (!can(asker.role, 'judgeFindings')) {
+		return forbidden(`Your role (${roleLabels[asker.role]}) does not ${move} findings`);
+	}
+	return null;
+}
+
+/**
+ * PATCH …/findings/{id}: a state change, a waiver, or an edit of the fields, each checked
+ * against what the asker's role may do.
+ */
+export async function changeFinding(
+	db: Db,
+	asker: Asker,
+	place: FindingPlace,
+	finding: FindingRow,
+	patch: FindingPatch
+): Promise<FindingOutcome> {
+	const { version, state, message, waiver, ...changes } = patch;
+	const { drawing, revision } = place;
+	try {
+		let row: FindingRow;
+		if (state !== undefined) {
+			const refused = moveRefusal(asker, finding, state);
+			if (refused) return refused;
+			if (needsMessage.includes(state) && !message) {
+				return invalid('message', `Say why you ${moveNames[state]} ${findingName(finding.number)}`);
+			}
+			row = await moveFinding(
+				db,
+				asker.user,
+				drawing,
+				revision,
+				finding,
+				version,
+				state,
+				message ?? ''
+			);
+		} else if (waiver !== undefined) {
+			if (!can(asker.role, 'judgeFindings')) {
+				return forbidden(`Your role (${roleLabels[asker.role]}) does not waive findings`);
+			}
+			if (finding.kind !== 'rule' || !isOpen(finding.state)) {
+				return {
+					ok: false,
+					status: 409,
+					code: 'invalid_transition',
+					message: 'Only an open rule finding is waived: a manual finding is withdrawn instead',
+					current: await findingOf(db, finding)
+				};
+			}
+			const value = waiver && {
+				by: asker.user.id,
+				at: new Date().toISOString(),
+				reason: waiver.reason
+			};
+			row = await updateFinding(
+				db,
+				asker.user,
+				drawing,
+				revision,
+				finding,
+				version,
+				{ waiver: value },
+				waiver ? 'waive' : 'unwaive'
+			);
+		} else {
+			// Whoever raised it edits it, and whoever judges findings; the rulebook's own text stays.
+			const judge = can(asker.role, 'judgeFindings');
+			if (!judge && finding.raisedBy !== asker.user.id) {
+				return forbidden(
+					`Only whoever raised ${findingName(finding.number)} or a checker edits it`
+				);
+			}
+			if (finding.kind === 'rule' && changes.text !== undefined) {
+				return invalid('text', "A rule finding's text is the rulebook's");
+			}
+			if (!can(asker.role, 'raiseFindings')) {
+				return forbidden(`Your role (${roleLabels[asker.role]}) does not edit findings`);
+			}
+			const bad = await checkReferences(db, place, changes);
+			if (bad) return bad;
+			row = await updateFinding(
+				db,
+				asker.user,
+				drawing,
+				revision,
+				finding,
+				version,
+				changes satisfies Partial<FindingValues>
+			);
+		}
+		return { ok: true, finding: await findingOf(db, row) };
+	} catch (err) {
+		return refusalFor(db, err);
+	}
+}
