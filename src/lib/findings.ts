@@ -10,6 +10,8 @@ import type {
 	findingResponse
 } from '$lib/schemas/findings';
 import type { Severity } from '$lib/tolerance/rulebook';
+import { writeViewLink } from '$lib/board/view-params';
+import type { MarkerLocation } from '$lib/features';
 
 /** `manual`: raised by a person; `rule`: raised by the rulebook, keyed by its result. */
 export const findingKinds = ['manual', 'rule'] as const;
@@ -75,6 +77,21 @@ export const findingName = (number: number) => `F-${number}`;
 
 /** The board's marker id of a finding (the `show` view parameter). */
 export const findingMarkerId = (id: string) => `finding-${id}`;
+
+/**
+ * The board's address showing a finding: its sheet, centred on its marker (an area's middle),
+ * and the marker to fly to (view parameters of `$lib/board/view-params`).
+ */
+export function boardHref(revisionPath: string, id: string, location: MarkerLocation | null) {
+	if (!location) return null;
+	const centre = { x: location.x + (location.w ?? 0) / 2, y: location.y + (location.h ?? 0) / 2 };
+	const query = writeViewLink(new URLSearchParams(), {
+		sheet: location.sheet,
+		centre,
+		show: findingMarkerId(id)
+	});
+	return `${revisionPath}?${query}`;
+}
 
 /** One finding as the API answers it. */
 export type FindingJson = z.output<typeof findingResponse>;

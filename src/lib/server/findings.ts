@@ -6,6 +6,7 @@
  * frozen and the version is current — and answer an outcome either way.
  */
 import {
+	findingMoves,
 	findingName,
 	isOpen,
 	moveNames,
@@ -187,6 +188,11 @@ function moveRefusal(asker: Asker, finding: FindingRow, to: FindingState): Findi
 		return forbidden(`Your role (${roleLabels[asker.role]}) does not ${move} findings`);
 	}
 	return null;
+}
+
+/** The states the asker may move this finding to now: their role allows it and the machine has it. */
+export function movesFor(asker: Asker, finding: FindingRow): FindingState[] {
+	return findingMoves[finding.state].filter((to) => !moveRefusal(asker, finding, to));
 }
 
 /**
