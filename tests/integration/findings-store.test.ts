@@ -14,7 +14,7 @@ import {
 import { createDrawing, insertRevision } from '../../src/lib/server/db/queries/drawings';
 import { addMember, createTeam } from '../../src/lib/server/db/queries/teams';
 import { createUser } from '../../src/lib/server/db/queries/users';
-import { getFinding, getFindingByNumber } from '../../src/lib/server/db/queries/findings';
+import { getFinding } from '../../src/lib/server/db/queries/findings';
 import { getComment } from '../../src/lib/server/db/queries/comments';
 import { addFeature } from '../../src/lib/server/features';
 import {
@@ -606,10 +606,10 @@ describe('findings by number', () => {
 	it('are found on their revision only', async () => {
 		const place = await newRevision();
 		const finding: FindingRow = await raise(place);
-		expect((await getFindingByNumber(database.db, place.revision.id, finding.number))?.id).toBe(
+		expect((await getFinding(database.db, place.revision.id, { number: finding.number }))?.id).toBe(
 			finding.id
 		);
 		const other = await newRevision();
-		expect(await getFindingByNumber(database.db, other.revision.id, finding.number)).toBeNull();
+		expect(await getFinding(database.db, other.revision.id, { number: finding.number })).toBeNull();
 	});
 });

@@ -12,9 +12,8 @@ import { renderComment, type Mentionable } from './comment-html';
 import type { Db } from './db/connect';
 import type { Actor } from './db/queries/activity';
 import {
-	createComment,
 	listComments,
-	updateComment,
+	saveComment,
 	type ThreadPlace,
 	type ThreadSubject
 } from './db/queries/comments';
@@ -107,10 +106,13 @@ export async function addComment(
 	}
 	const members = await listMembers(db, thread.team.id);
 	const { mentions } = renderComment(body, members);
-	const row = await createComment(db, asker.user, placeOf(thread), thread.subject, {
-		body,
-		mentions
-	});
+	const row = await saveComment(
+		db,
+		asker.user,
+		placeOf(thread),
+		{ subject: thread.subject },
+		{ body, mentions }
+	);
 	return { ok: true, comment: commentJson(row, members) };
 }
 
@@ -140,6 +142,6 @@ export async function editComment(
 	}
 	const members = await listMembers(db, thread.team.id);
 	const { mentions } = renderComment(body, members);
-	const row = await updateComment(db, user, placeOf(thread), comment, { body, mentions });
+	const row = await saveComment(db, user, placeOf(thread), { comment }, { body, mentions });
 	return { ok: true, comment: commentJson(row, members) };
 }

@@ -28,6 +28,7 @@ import {
 	StaleFinding,
 	storedFinding,
 	updateFinding,
+	type FindingEdit,
 	type FindingValues
 } from './db/queries/findings';
 import { getFit } from './db/queries/fits';
@@ -195,6 +196,88 @@ export function movesFor(asker: Asker, finding: FindingRow): FindingState[] {
 	return findingMoves[finding.state].filter((to) => !moveRefusal(asker, finding, to));
 }
 
+type Write = (changes: Partial<FindingValues>, action?: FindingEdit) => Promise<FindingRow>;
+
+/** A state change: the asker's role may make it and a message says why where one is needed. */
+async function move(
+	db: Db,
+	asker: Asker,
+	place: FindingPlace,
+	finding: FindingRow,
+	patch: FindingPatch & { state: FindingState }
+) {
+	const refused = moveRefusal(asker, finding, patch.state);
+	if (refused) return refused;
+	if (needsMessage.includes(patch.state) && !patch.message) {
+		return invalid(
+			'message',
+			`Say why you ${moveNames[patch.state]} ${findingName(finding.number)}`
+		);
+	}
+	const { drawing, revision } = place;
+	const message = patch.message ?? '';
+	return moveFinding(
+		db,
+		asker.user,
+		drawing,
+		revision,
+		finding,
+		patch.version,
+		patch.state,
+		message
+	);
+}
+
+/** A waiver on an open rule finding, or taking it back (`null`): a judge's decision. */
+async function waive(
+	db: Db,
+	asker: Asker,
+	finding: FindingRow,
+	waiver: { reason: string } | null,
+	write: Write
+) {
+	if (!can(asker.role, 'judgeFindings')) {
+		return forbidden(`Your role (${roleLabels[asker.role]}) does not waive findings`);
+	}
+	if (finding.kind !== 'rule' || !isOpen(finding.state)) {
+		return {
+			ok: false,
+			status: 409,
+			code: 'invalid_transition',
+			message: 'Only an open rule finding is waived: a manual finding is withdrawn instead',
+			current: await findingOf(db, finding)
+		} satisfies FindingRefusal;
+	}
+	const value = waiver && {
+		by: asker.user.id,
+		at: new Date().toISOString(),
+		reason: waiver.reason
+	};
+	return write({ waiver: value }, waiver ? 'waive' : 'unwaive');
+}
+
+/** An edit of the fields: by whoever raised it or a judge; the rulebook's own text stays. */
+async function edit(
+	db: Db,
+	asker: Asker,
+	place: FindingPlace,
+	finding: FindingRow,
+	changes: Partial<FindingValues>,
+	write: Write
+) {
+	if (!can(asker.role, 'raiseFindings')) {
+		return forbidden(`Your role (${roleLabels[asker.role]}) does not edit findings`);
+	}
+	if (!can(asker.role, 'judgeFindings') && finding.raisedBy !== asker.user.id) {
+		return forbidden(`Only whoever raised ${findingName(finding.number)} or a checker edits it`);
+	}
+	if (finding.kind === 'rule' && changes.text !== undefined) {
+		return invalid('text', "A rule finding's text is the rulebook's");
+	}
+	const bad = await checkReferences(db, place, changes);
+	return bad ?? write(changes);
+}
+
 /**
  * PATCH …/findings/{id}: a state change, a waiver, or an edit of the fields, each checked
  * against what the asker's role may do.
@@ -206,81 +289,18 @@ export async function changeFinding(
 	finding: FindingRow,
 	patch: FindingPatch
 ): Promise<FindingOutcome> {
-	const { version, state, message, waiver, ...changes } = patch;
-	const { drawing, revision } = place;
+	const { version, state, message: _message, waiver, ...changes } = patch;
+	const write: Write = (values, action) =>
+		updateFinding(db, asker.user, place.drawing, place.revision, finding, version, values, action);
 	try {
-		let row: FindingRow;
-		if (state !== undefined) {
-			const refused = moveRefusal(asker, finding, state);
-			if (refused) return refused;
-			if (needsMessage.includes(state) && !message) {
-				return invalid('message', `Say why you ${moveNames[state]} ${findingName(finding.number)}`);
-			}
-			row = await moveFinding(
-				db,
-				asker.user,
-				drawing,
-				revision,
-				finding,
-				version,
-				state,
-				message ?? ''
-			);
-		} else if (waiver !== undefined) {
-			if (!can(asker.role, 'judgeFindings')) {
-				return forbidden(`Your role (${roleLabels[asker.role]}) does not waive findings`);
-			}
-			if (finding.kind !== 'rule' || !isOpen(finding.state)) {
-				return {
-					ok: false,
-					status: 409,
-					code: 'invalid_transition',
-					message: 'Only an open rule finding is waived: a manual finding is withdrawn instead',
-					current: await findingOf(db, finding)
-				};
-			}
-			const value = waiver && {
-				by: asker.user.id,
-				at: new Date().toISOString(),
-				reason: waiver.reason
-			};
-			row = await updateFinding(
-				db,
-				asker.user,
-				drawing,
-				revision,
-				finding,
-				version,
-				{ waiver: value },
-				waiver ? 'waive' : 'unwaive'
-			);
-		} else {
-			// Whoever raised it edits it, and whoever judges findings; the rulebook's own text stays.
-			const judge = can(asker.role, 'judgeFindings');
-			if (!judge && finding.raisedBy !== asker.user.id) {
-				return forbidden(
-					`Only whoever raised ${findingName(finding.number)} or a checker edits it`
-				);
-			}
-			if (finding.kind === 'rule' && changes.text !== undefined) {
-				return invalid('text', "A rule finding's text is the rulebook's");
-			}
-			if (!can(asker.role, 'raiseFindings')) {
-				return forbidden(`Your role (${roleLabels[asker.role]}) does not edit findings`);
-			}
-			const bad = await checkReferences(db, place, changes);
-			if (bad) return bad;
-			row = await updateFinding(
-				db,
-				asker.user,
-				drawing,
-				revision,
-				finding,
-				version,
-				changes satisfies Partial<FindingValues>
-			);
-		}
-		return { ok: true, finding: await findingOf(db, row) };
+		const done =
+			state !== undefined
+				? await move(db, asker, place, finding, { ...patch, state })
+				: waiver !== undefined
+					? await waive(db, asker, finding, waiver, write)
+					: await edit(db, asker, place, finding, changes, write);
+		if ('ok' in done) return done;
+		return { ok: true, finding: await findingOf(db, done) };
 	} catch (err) {
 		return refusalFor(db, err);
 	}

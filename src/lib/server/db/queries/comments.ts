@@ -42,55 +42,39 @@ const stored = (row: CommentRow) => ({
 	editedAt: row.editedAt?.toISOString() ?? null
 });
 
-export async function createComment(
+/**
+ * Adds a comment to the thread of `subject`, or replaces the body of `comment` (which shows as
+ * edited from then on); the trail keeps both bodies.
+ */
+export async function saveComment(
 	db: Db,
 	actor: Actor,
 	place: ThreadPlace,
-	subject: ThreadSubject,
+	target: { subject: ThreadSubject } | { comment: CommentRow },
 	values: { body: string; mentions: string[] }
 ) {
 	return db.transaction(async (tx) => {
-		const [row] = await tx
-			.insert(comments)
-			.values({ ...values, ...subject, teamId: place.teamId, authorId: actor.id })
-			.returning();
+		const before = 'comment' in target ? target.comment : null;
+		const [row] =
+			'comment' in target
+				? await tx
+						.update(comments)
+						.set({ ...values, editedAt: new Date() })
+						.where(eq(comments.id, target.comment.id))
+						.returning()
+				: await tx
+						.insert(comments)
+						.values({ ...values, ...target.subject, teamId: place.teamId, authorId: actor.id })
+						.returning();
 		await recordActivity(tx, {
 			teamId: place.teamId,
 			actor,
 			entity: 'comment',
 			entityId: row.id,
 			drawingId: place.drawingId,
-			action: 'create',
-			summary: `commented on ${place.title}`,
-			after: stored(row)
-		});
-		return row;
-	});
-}
-
-/** Replaces a comment's body; it shows as edited from now on. */
-export async function updateComment(
-	db: Db,
-	actor: Actor,
-	place: ThreadPlace,
-	comment: CommentRow,
-	values: { body: string; mentions: string[] }
-) {
-	return db.transaction(async (tx) => {
-		const [row] = await tx
-			.update(comments)
-			.set({ ...values, editedAt: new Date() })
-			.where(eq(comments.id, comment.id))
-			.returning();
-		await recordActivity(tx, {
-			teamId: place.teamId,
-			actor,
-			entity: 'comment',
-			entityId: row.id,
-			drawingId: place.drawingId,
-			action: 'update',
-			summary: `edited a comment on ${place.title}`,
-			before: stored(comment),
+			action: before ? 'update' : 'create',
+			summary: before ? `edited a comment on ${place.title}` : `commented on ${place.title}`,
+			before: before ? stored(before) : undefined,
 			after: stored(row)
 		});
 		return row;

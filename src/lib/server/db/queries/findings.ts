@@ -66,19 +66,17 @@ export async function listFindings(db: Db, revisionId: string, query: FindingQue
 		.orderBy(asc(findings.number));
 }
 
-export async function getFinding(db: Db, revisionId: string, id: string) {
+/** A finding of the revision by its id or its number. */
+export async function getFinding(db: Db, revisionId: string, which: string | { number: number }) {
 	const [row] = await db
 		.select()
 		.from(findings)
-		.where(and(eq(findings.revisionId, revisionId), eq(findings.id, id)));
-	return row ?? null;
-}
-
-export async function getFindingByNumber(db: Db, revisionId: string, number: number) {
-	const [row] = await db
-		.select()
-		.from(findings)
-		.where(and(eq(findings.revisionId, revisionId), eq(findings.number, number)));
+		.where(
+			and(
+				eq(findings.revisionId, revisionId),
+				typeof which === 'string' ? eq(findings.id, which) : eq(findings.number, which.number)
+			)
+		);
 	return row ?? null;
 }
 
@@ -179,6 +177,53 @@ async function lockFinding(tx: Db, revision: RevisionRow, finding: FindingRow, v
 	return current;
 }
 
+export type FindingEdit = 'update' | 'waive' | 'unwaive';
+
+interface Change {
+	set: Partial<typeof findings.$inferInsert>;
+	action: string;
+	/** The trail's words for what was done, e.g. "edited F-3". */
+	summary: (row: FindingRow) => string;
+	/** Refuses the change on the locked row (by throwing). */
+	check?: (before: FindingRow) => void;
+	/** More for the trail's `after`. */
+	note?: Record<string, unknown>;
+}
+
+/**
+ * One change of a finding made against `version`: the revision and the row locked, the version
+ * checked, the row updated with a new version, and the trail written with before and after.
+ */
+async function writeFinding(
+	tx: Db,
+	actor: Actor,
+	drawing: DrawingRow,
+	revision: RevisionRow,
+	finding: FindingRow,
+	version: number,
+	change: Change
+) {
+	const before = await lockFinding(tx, revision, finding, version);
+	change.check?.(before);
+	const [row] = await tx
+		.update(findings)
+		.set({ ...change.set, version: sql`${findings.version} + 1`, updatedAt: new Date() })
+		.where(eq(findings.id, finding.id))
+		.returning();
+	await recordActivity(tx, {
+		teamId: drawing.teamId,
+		actor,
+		entity: 'finding',
+		entityId: row.id,
+		drawingId: drawing.id,
+		action: change.action,
+		summary: `${change.summary(row)} on ${where(revision, drawing)}`,
+		before: storedFinding(before),
+		after: { ...storedFinding(row), ...change.note }
+	});
+	return { before, row };
+}
+
 /** Edits the finding's fields or its waiver, made against `version`. */
 export async function updateFinding(
 	db: Db,
@@ -188,26 +233,14 @@ export async function updateFinding(
 	finding: FindingRow,
 	version: number,
 	changes: Partial<FindingValues>,
-	action: 'update' | 'waive' | 'unwaive' = 'update'
+	action: FindingEdit = 'update'
 ) {
+	const verb = { update: 'edited', waive: 'waived', unwaive: 'took back the waiver of' }[action];
 	return db.transaction(async (tx) => {
-		const before = await lockFinding(tx, revision, finding, version);
-		const [row] = await tx
-			.update(findings)
-			.set({ ...changes, version: sql`${findings.version} + 1`, updatedAt: new Date() })
-			.where(eq(findings.id, finding.id))
-			.returning();
-		const verb = { update: 'edited', waive: 'waived', unwaive: 'took back the waiver of' }[action];
-		await recordActivity(tx, {
-			teamId: drawing.teamId,
-			actor,
-			entity: 'finding',
-			entityId: row.id,
-			drawingId: drawing.id,
+		const { row } = await writeFinding(tx, actor, drawing, revision, finding, version, {
+			set: changes,
 			action,
-			summary: `${verb} ${name(row)} on ${where(revision, drawing)}`,
-			before: storedFinding(before),
-			after: storedFinding(row)
+			summary: (row) => `${verb} ${name(row)}`
 		});
 		return row;
 	});
@@ -225,27 +258,19 @@ export async function moveFinding(
 	message: string
 ) {
 	return db.transaction(async (tx) => {
-		const before = await lockFinding(tx, revision, finding, version);
-		if (!canMove(before.state, to)) throw new InvalidMove(before, to);
-		const [row] = await tx
-			.update(findings)
-			.set({ state: to, version: sql`${findings.version} + 1`, updatedAt: new Date() })
-			.where(eq(findings.id, finding.id))
-			.returning();
+		const { before, row } = await writeFinding(tx, actor, drawing, revision, finding, version, {
+			set: { state: to },
+			action: 'state',
+			check: (before) => {
+				if (!canMove(before.state, to)) throw new InvalidMove(before, to);
+			},
+			summary: (row) =>
+				`moved ${name(row)} from ${finding.state} to ${to}${message ? ` (${message})` : ''}`,
+			note: { message }
+		});
 		await tx
 			.insert(findingMoves)
 			.values({ findingId: row.id, from: before.state, to, message, byId: actor.id });
-		await recordActivity(tx, {
-			teamId: drawing.teamId,
-			actor,
-			entity: 'finding',
-			entityId: row.id,
-			drawingId: drawing.id,
-			action: 'state',
-			summary: `moved ${name(row)} from ${before.state} to ${to} on ${where(revision, drawing)}${message ? `: ${message}` : ''}`,
-			before: storedFinding(before),
-			after: { ...storedFinding(row), message }
-		});
 		return row;
 	});
 }

@@ -3,7 +3,7 @@ import { addComment, commentsOf, editComment, findingThread } from '$lib/server/
 import { db } from '$lib/server/db';
 import { getComment } from '$lib/server/db/queries/comments';
 import { getFeature } from '$lib/server/db/queries/features';
-import { getFindingByNumber } from '$lib/server/db/queries/findings';
+import { getFinding } from '$lib/server/db/queries/findings';
 import { isVisibleToSuppliers } from '$lib/server/db/queries/drawings';
 import { listMembers } from '$lib/server/db/queries/teams';
 import { isFrozen } from '$lib/server/db/schema';
@@ -21,7 +21,9 @@ async function requireFindingPage(
 ) {
 	const place = await requireRevision(params.team, params.number, params.letter, capability);
 	const number = /^(?:F-)?(\d{1,9})$/i.exec(params.finding)?.[1];
-	const finding = number ? await getFindingByNumber(db, place.revision.id, Number(number)) : null;
+	const finding = number
+		? await getFinding(db, place.revision.id, { number: Number(number) })
+		: null;
 	if (!finding) notFound();
 	return { place, finding, asker: { user: place.user, role: place.membership.role } };
 }
