@@ -1,5 +1,5 @@
 import { and, asc, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm';
-import { canMove, openStates, type FindingState } from '$lib/findings';
+import { canMove, findingName, openStates, type FindingState } from '$lib/findings';
 import type { FindingQuery } from '$lib/schemas/findings';
 import type { Db } from '../connect';
 import {
@@ -118,9 +118,35 @@ export function storedFinding(row: FindingRow) {
 	};
 }
 
-const name = (row: FindingRow) => `F-${row.number}`;
+const name = (row: FindingRow) => findingName(row.number);
 const where = (revision: RevisionRow, drawing: DrawingRow) =>
 	`revision ${revision.letter} of ${drawing.number}`;
+
+/** The trail's entry for a change of a finding, with the stored record before and after. */
+async function trail(
+	tx: Db,
+	actor: Actor,
+	drawing: DrawingRow,
+	entry: {
+		row: FindingRow;
+		before?: FindingRow;
+		action: string;
+		summary: string;
+		note?: Record<string, unknown>;
+	}
+) {
+	await recordActivity(tx, {
+		teamId: drawing.teamId,
+		actor,
+		entity: 'finding',
+		entityId: entry.row.id,
+		drawingId: drawing.id,
+		action: entry.action,
+		summary: entry.summary,
+		before: entry.before && storedFinding(entry.before),
+		after: { ...storedFinding(entry.row), ...entry.note }
+	});
+}
 
 /** Raises a finding with the drawing's next finding number: counted, never reused. */
 export async function createFinding(
@@ -148,15 +174,10 @@ export async function createFinding(
 				raisedBy: actor.id
 			})
 			.returning();
-		await recordActivity(tx, {
-			teamId: drawing.teamId,
-			actor,
-			entity: 'finding',
-			entityId: row.id,
-			drawingId: drawing.id,
+		await trail(tx, actor, drawing, {
+			row,
 			action: 'create',
-			summary: `raised ${name(row)} (${row.severity}) on ${where(revision, drawing)}`,
-			after: storedFinding(row)
+			summary: `raised ${name(row)} (${row.severity}) on ${where(revision, drawing)}`
 		});
 		return row;
 	});
@@ -210,16 +231,12 @@ async function writeFinding(
 		.set({ ...change.set, version: sql`${findings.version} + 1`, updatedAt: new Date() })
 		.where(eq(findings.id, finding.id))
 		.returning();
-	await recordActivity(tx, {
-		teamId: drawing.teamId,
-		actor,
-		entity: 'finding',
-		entityId: row.id,
-		drawingId: drawing.id,
+	await trail(tx, actor, drawing, {
+		row,
+		before,
 		action: change.action,
 		summary: `${change.summary(row)} on ${where(revision, drawing)}`,
-		before: storedFinding(before),
-		after: { ...storedFinding(row), ...change.note }
+		note: change.note
 	});
 	return { before, row };
 }
