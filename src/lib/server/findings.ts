@@ -15,17 +15,17 @@ import {
 	type FindingState
 } from '$lib/findings';
 import type { FindingInput, FindingPatch, FindingQuery } from '$lib/schemas/findings';
+import { writeRefusal } from './api';
 import { can } from './capabilities';
 import type { Db } from './db/connect';
 import type { Actor } from './db/queries/activity';
-import { getFeature, RevisionFrozen } from './db/queries/features';
+import { getFeature } from './db/queries/features';
 import {
 	createFinding,
 	InvalidMove,
 	listFindings,
 	listMoves,
 	moveFinding,
-	StaleFinding,
 	storedFinding,
 	updateFinding,
 	type FindingEdit,
@@ -129,18 +129,6 @@ async function checkReferences(
 }
 
 async function refusalFor(db: Db, err: unknown): Promise<FindingRefusal> {
-	if (err instanceof RevisionFrozen) {
-		return { ok: false, status: 409, code: 'frozen', message: `${err.message}.` };
-	}
-	if (err instanceof StaleFinding) {
-		return {
-			ok: false,
-			status: 409,
-			code: 'stale',
-			message: `${err.message}: your change was not applied. Here is the current finding.`,
-			current: await findingOf(db, err.current)
-		};
-	}
 	if (err instanceof InvalidMove) {
 		return {
 			ok: false,
@@ -150,7 +138,7 @@ async function refusalFor(db: Db, err: unknown): Promise<FindingRefusal> {
 			current: await findingOf(db, err.current)
 		};
 	}
-	throw err;
+	return writeRefusal(err, 'finding', (row: FindingRow) => findingOf(db, row));
 }
 
 /** Raises a manual finding with the drawing's next number. */

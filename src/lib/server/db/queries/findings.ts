@@ -11,8 +11,8 @@ import {
 	type FindingRow,
 	type RevisionRow
 } from '../schema';
-import { recordActivity, type Actor } from './activity';
-import { lockOpenRevision } from './features';
+import type { Actor } from './activity';
+import { StaleWrite, writeOnRevision } from './revision-writes';
 
 export type FindingValues = Omit<
 	typeof findings.$inferInsert,
@@ -27,12 +27,6 @@ export type FindingValues = Omit<
 	| 'createdAt'
 	| 'updatedAt'
 >;
-
-export class StaleFinding extends Error {
-	constructor(readonly current: FindingRow) {
-		super('Someone changed this finding since you loaded it');
-	}
-}
 
 /** A state change the machine does not have (PRODUCT.md §3). */
 export class InvalidMove extends Error {
@@ -122,32 +116,6 @@ const name = (row: FindingRow) => findingName(row.number);
 const where = (revision: RevisionRow, drawing: DrawingRow) =>
 	`revision ${revision.letter} of ${drawing.number}`;
 
-/** The trail's entry for a change of a finding, with the stored record before and after. */
-async function trail(
-	tx: Db,
-	actor: Actor,
-	drawing: DrawingRow,
-	entry: {
-		row: FindingRow;
-		before?: FindingRow;
-		action: string;
-		summary: string;
-		note?: Record<string, unknown>;
-	}
-) {
-	await recordActivity(tx, {
-		teamId: drawing.teamId,
-		actor,
-		entity: 'finding',
-		entityId: entry.row.id,
-		drawingId: drawing.id,
-		action: entry.action,
-		summary: entry.summary,
-		before: entry.before && storedFinding(entry.before),
-		after: { ...storedFinding(entry.row), ...entry.note }
-	});
-}
-
 /** Raises a finding with the drawing's next finding number: counted, never reused. */
 export async function createFinding(
 	db: Db,
@@ -156,46 +124,36 @@ export async function createFinding(
 	revision: RevisionRow,
 	values: FindingValues
 ) {
-	return db.transaction(async (tx) => {
-		await lockOpenRevision(tx, revision);
-		const [counter] = await tx
-			.update(drawings)
-			.set({ nextFinding: sql`${drawings.nextFinding} + 1` })
-			.where(eq(drawings.id, drawing.id))
-			.returning({ next: drawings.nextFinding });
-		const [row] = await tx
-			.insert(findings)
-			.values({
-				...values,
-				teamId: drawing.teamId,
-				drawingId: drawing.id,
-				revisionId: revision.id,
-				number: counter.next - 1,
-				raisedBy: actor.id
+	return writeOnRevision<FindingRow>(
+		db,
+		{ actor, drawing, revision },
+		{
+			entity: 'finding',
+			write: async (tx) => {
+				const [counter] = await tx
+					.update(drawings)
+					.set({ nextFinding: sql`${drawings.nextFinding} + 1` })
+					.where(eq(drawings.id, drawing.id))
+					.returning({ next: drawings.nextFinding });
+				return tx
+					.insert(findings)
+					.values({
+						...values,
+						teamId: drawing.teamId,
+						drawingId: drawing.id,
+						revisionId: revision.id,
+						number: counter.next - 1,
+						raisedBy: actor.id
+					})
+					.returning();
+			},
+			record: (row) => ({
+				action: 'create',
+				summary: `raised ${name(row)} (${row.severity}) on ${where(revision, drawing)}`,
+				after: storedFinding(row)
 			})
-			.returning();
-		await trail(tx, actor, drawing, {
-			row,
-			action: 'create',
-			summary: `raised ${name(row)} (${row.severity}) on ${where(revision, drawing)}`
-		});
-		return row;
-	});
-}
-
-/**
- * Locks the finding for a change made against `version` on an open revision; a stale version
- * throws with the current finding.
- */
-async function lockFinding(tx: Db, revision: RevisionRow, finding: FindingRow, version: number) {
-	await lockOpenRevision(tx, revision);
-	const [current] = await tx
-		.select()
-		.from(findings)
-		.where(eq(findings.id, finding.id))
-		.for('update');
-	if (current.version !== version) throw new StaleFinding(current);
-	return current;
+		}
+	);
 }
 
 export type FindingEdit = 'update' | 'waive' | 'unwaive';
@@ -207,16 +165,19 @@ interface Change {
 	summary: (row: FindingRow) => string;
 	/** Refuses the change on the locked row (by throwing). */
 	check?: (before: FindingRow) => void;
+	/** More written in the same transaction once the row is. */
+	also?: (tx: Db, before: FindingRow, row: FindingRow) => Promise<void>;
 	/** More for the trail's `after`. */
 	note?: Record<string, unknown>;
 }
 
 /**
- * One change of a finding made against `version`: the revision and the row locked, the version
- * checked, the row updated with a new version, and the trail written with before and after.
+ * One change of a finding made against `version` (the revision's shared write: revision locked,
+ * frozen refused, trail written): the row is locked and its version checked first, so a move is
+ * judged on the state it really has.
  */
 async function writeFinding(
-	tx: Db,
+	db: Db,
 	actor: Actor,
 	drawing: DrawingRow,
 	revision: RevisionRow,
@@ -224,21 +185,39 @@ async function writeFinding(
 	version: number,
 	change: Change
 ) {
-	const before = await lockFinding(tx, revision, finding, version);
-	change.check?.(before);
-	const [row] = await tx
-		.update(findings)
-		.set({ ...change.set, version: sql`${findings.version} + 1`, updatedAt: new Date() })
-		.where(eq(findings.id, finding.id))
-		.returning();
-	await trail(tx, actor, drawing, {
-		row,
-		before,
-		action: change.action,
-		summary: `${change.summary(row)} on ${where(revision, drawing)}`,
-		note: change.note
-	});
-	return { before, row };
+	let before = finding;
+	return writeOnRevision<FindingRow>(
+		db,
+		{ actor, drawing, revision },
+		{
+			entity: 'finding',
+			check: async (tx) => {
+				const [current] = await tx
+					.select()
+					.from(findings)
+					.where(eq(findings.id, finding.id))
+					.for('update');
+				if (current?.version !== version) throw new StaleWrite(current ?? null, 'finding');
+				change.check?.(current);
+				before = current;
+			},
+			write: async (tx) => {
+				const rows = await tx
+					.update(findings)
+					.set({ ...change.set, version: sql`${findings.version} + 1`, updatedAt: new Date() })
+					.where(eq(findings.id, finding.id))
+					.returning();
+				await change.also?.(tx, before, rows[0]);
+				return rows;
+			},
+			record: (row) => ({
+				action: change.action,
+				summary: `${change.summary(row)} on ${where(revision, drawing)}`,
+				before: storedFinding(before),
+				after: { ...storedFinding(row), ...change.note }
+			})
+		}
+	);
 }
 
 /** Edits the finding's fields or its waiver, made against `version`. */
@@ -253,13 +232,10 @@ export async function updateFinding(
 	action: FindingEdit = 'update'
 ) {
 	const verb = { update: 'edited', waive: 'waived', unwaive: 'took back the waiver of' }[action];
-	return db.transaction(async (tx) => {
-		const { row } = await writeFinding(tx, actor, drawing, revision, finding, version, {
-			set: changes,
-			action,
-			summary: (row) => `${verb} ${name(row)}`
-		});
-		return row;
+	return writeFinding(db, actor, drawing, revision, finding, version, {
+		set: changes,
+		action,
+		summary: (row) => `${verb} ${name(row)}`
 	});
 }
 
@@ -274,20 +250,19 @@ export async function moveFinding(
 	to: FindingState,
 	message: string
 ) {
-	return db.transaction(async (tx) => {
-		const { before, row } = await writeFinding(tx, actor, drawing, revision, finding, version, {
-			set: { state: to },
-			action: 'state',
-			check: (before) => {
-				if (!canMove(before.state, to)) throw new InvalidMove(before, to);
-			},
-			summary: (row) =>
-				`moved ${name(row)} from ${finding.state} to ${to}${message ? ` (${message})` : ''}`,
-			note: { message }
-		});
-		await tx
-			.insert(findingMoves)
-			.values({ findingId: row.id, from: before.state, to, message, byId: actor.id });
-		return row;
+	return writeFinding(db, actor, drawing, revision, finding, version, {
+		set: { state: to },
+		action: 'state',
+		check: (before) => {
+			if (!canMove(before.state, to)) throw new InvalidMove(before, to);
+		},
+		also: async (tx, before, row) => {
+			await tx
+				.insert(findingMoves)
+				.values({ findingId: row.id, from: before.state, to, message, byId: actor.id });
+		},
+		summary: (row) =>
+			`moved ${name(row)} from ${finding.state} to ${to}${message ? ` (${message})` : ''}`,
+		note: { message }
 	});
 }
