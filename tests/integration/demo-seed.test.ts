@@ -6,6 +6,9 @@ import { demoDrawings } from '../../src/lib/server/demo/drawings';
 import { seedDemo } from '../../src/lib/server/demo/seed';
 import { featuresOf } from '../../src/lib/server/features';
 import { fitsOf } from '../../src/lib/server/fits';
+import { findingsOf } from '../../src/lib/server/findings';
+import { commentsOf, findingThread } from '../../src/lib/server/comments';
+import { getFinding } from '../../src/lib/server/db/queries/findings';
 import { createStorage } from '../../src/lib/server/storage';
 import { freshDatabase, startFakes, tempDir } from './harness';
 
@@ -99,5 +102,36 @@ describe('the demo board', () => {
 		expect(housing.every((f) => f.problem === null)).toBe(true);
 		const bracket = await fitsOf(database.db, await placeOf('KF-2001'));
 		expect(bracket).toHaveLength(1);
+	});
+
+	it('has manual findings with short threads between the checker and the drafter, seeded once', async () => {
+		const byDrawing: Record<string, string[]> = {};
+		for (const number of ['KF-1001', 'KF-1002', 'KF-1003', 'KF-2001']) {
+			const place = await placeOf(number);
+			const list = await findingsOf(database.db, place);
+			byDrawing[number] = list.map((f) => `F-${f.number} ${f.severity} ${f.state}`);
+			for (const f of list) {
+				expect(f).toMatchObject({ kind: 'manual', rule: null });
+				expect(f.location, `F-${f.number}`).not.toBeNull();
+			}
+		}
+		// Seeded twice (beforeAll), numbered once.
+		expect(byDrawing).toEqual({
+			'KF-1001': ['F-1 minor raised', 'F-2 note resolved'],
+			'KF-1002': ['F-1 major answered'],
+			'KF-1003': [],
+			'KF-2001': ['F-1 note withdrawn']
+		});
+		const shaft = await placeOf('KF-1002');
+		const [keyway] = await findingsOf(database.db, shaft);
+		const finding = (await getFinding(database.db, shaft.revision.id, keyway.id))!;
+		const thread = await commentsOf(database.db, findingThread(shaft, finding));
+		expect(thread).toHaveLength(2);
+		// "@tomas" is the demo drafter, a member of the team.
+		expect(thread[0].html).toContain('class="mention"');
+		expect(thread[0].html).toContain('<li>');
+		const housing = await placeOf('KF-1001');
+		const [anodise] = await findingsOf(database.db, housing);
+		expect(anodise.location).toMatchObject({ w: 0.3, h: 0.035 });
 	});
 });

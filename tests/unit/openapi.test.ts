@@ -23,10 +23,13 @@ describe('the OpenAPI document', () => {
 					.replace(/\/?\+server\.ts$/, '')
 					.replace(/\[(\w+)\]/g, '{$1}');
 			if (path === '/openapi.json') continue;
-			for (const [, method] of readFileSync(file, 'utf8').matchAll(
-				/export const (GET|POST|PATCH|DELETE)\b/g
+			// `export const GET = …`, or handlers shared by several routes: `export const { GET, POST } = …`.
+			for (const [, one, several] of readFileSync(file, 'utf8').matchAll(
+				/export const (?:(GET|POST|PATCH|DELETE)\b|\{([^}]*)\})/g
 			)) {
-				fromFiles.push(`${method.toLowerCase()} ${path}`);
+				for (const method of one ? [one] : several.split(',').map((m) => m.trim())) {
+					fromFiles.push(`${method.toLowerCase()} ${path}`);
+				}
 			}
 		}
 		const documented = Object.entries(operations).flatMap(([path, methods]) =>

@@ -9,6 +9,7 @@ import {
 	listRevisions
 } from './db/queries/drawings';
 import { getFeature } from './db/queries/features';
+import { getFinding } from './db/queries/findings';
 import { getFit } from './db/queries/fits';
 import { requireMember } from './guards';
 
@@ -64,6 +65,17 @@ export async function requireFit(
 	const fit = isUuid(params.id) ? await getFit(db, place.revision.id, params.id) : null;
 	if (!fit) notFound();
 	return { place, fit };
+}
+
+/** A finding of a revision the asker may see with `capability`; other ids answer 404. */
+export async function requireFinding(
+	params: { team: string; number: string; letter: string; id: string },
+	capability: Capability
+) {
+	const place = await requireRevision(params.team, params.number, params.letter, capability);
+	const finding = isUuid(params.id) ? await getFinding(db, place.revision.id, params.id) : null;
+	if (!finding) notFound();
+	return { place, finding };
 }
 
 /**

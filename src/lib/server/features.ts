@@ -274,7 +274,11 @@ export async function removeFeature(
 	}
 }
 
-function checkLocation(place: FeaturePlace, location: FeatureRow['location']): Refusal | null {
+/** A location on a sheet the revision has (the schema already holds it within 0..1). */
+export function checkLocation(
+	place: Pick<FeaturePlace, 'revision'>,
+	location: FeatureRow['location']
+): Refusal | null {
 	if (!location || location.sheet <= place.revision.pages) return null;
 	return {
 		ok: false,

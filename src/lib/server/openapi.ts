@@ -3,6 +3,14 @@ import { adviseInput, fitInput, sizeInput, sizeQuery } from '$lib/schemas/calc';
 import { drawingInput, drawingPatch, revisionPatch } from '$lib/schemas/drawings';
 import { deleteQuery, featureInput, featurePatch, featureResponse } from '$lib/schemas/features';
 import { fitCreate, fitPatch, fitResponse } from '$lib/schemas/fits';
+import {
+	commentInput,
+	commentResponse,
+	findingInput,
+	findingPatch,
+	findingQuery,
+	findingResponse
+} from '$lib/schemas/findings';
 import { importDescription } from '$lib/schemas/feature-import';
 import {
 	activityQuery,
@@ -180,6 +188,80 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 			success: 204
 		}
 	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/findings': {
+		get: {
+			summary:
+				'Findings on the revision by number, filtered by any of kind, state (comma-separated; `open` = raised or answered), severity, assigneeId (`none`: unassigned), rule, featureId, fitId',
+			query: findingQuery,
+			response: z.array(findingResponse),
+			success: 200
+		},
+		post: {
+			summary:
+				"Raise a finding (the drawing's next number, F-n, never reused) at a point or an area; 400 for empty text, an unknown feature or fit, or an assignee who is not a member or may not answer findings; 409 frozen",
+			body: findingInput,
+			response: findingResponse,
+			success: 201
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/findings/{id}': {
+		get: {
+			summary: 'One finding with the history of its state changes',
+			response: findingResponse,
+			success: 200
+		},
+		patch: {
+			summary:
+				'Change the state `{state, message, version}` (answer: the assignee; resolve, verify, withdraw, reopen: a checker or admin; a message is required to withdraw or reopen), waive an open rule finding `{waiver: {reason} | null, version}`, or edit the fields with `version`; 403 for a move your role may not make, 409 invalid_transition for a move the states do not have, 409 stale with the current finding, 409 frozen',
+			body: findingPatch,
+			response: findingResponse,
+			success: 200
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/findings/{id}/comments': {
+		get: {
+			summary: "The finding's thread, oldest first",
+			response: z.array(commentResponse),
+			success: 200
+		},
+		post: {
+			summary:
+				'Comment on a finding: `body` in the comment format (paragraphs, lists, code, links; `@name` mentions members of the team), answered with `html` rendered and sanitized; supplier quality comments on released revisions only',
+			body: commentInput,
+			response: commentResponse,
+			success: 201
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/findings/{id}/comments/{commentId}': {
+		patch: {
+			summary:
+				"Edit your own comment within 10 minutes of posting it (it shows as edited); 403 for another's, 409 too_late after",
+			body: commentInput,
+			response: commentResponse,
+			success: 200
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/features/{id}/comments': {
+		get: {
+			summary: "The feature's thread, oldest first",
+			response: z.array(commentResponse),
+			success: 200
+		},
+		post: {
+			summary: 'Comment on a feature (as on a finding)',
+			body: commentInput,
+			response: commentResponse,
+			success: 201
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/features/{id}/comments/{commentId}': {
+		patch: {
+			summary: 'Edit your own comment on a feature within 10 minutes of posting it',
+			body: commentInput,
+			response: commentResponse,
+			success: 200
+		}
+	},
 	'/teams/{team}/drawings/{number}/revisions/{letter}/features/import': {
 		post: {
 			summary:
@@ -248,7 +330,7 @@ export const errorCodes: Record<number, string[]> = {
 	403: ['forbidden'],
 	404: ['not_found'],
 	405: ['method_not_allowed'],
-	409: ['conflict', 'stale', 'frozen', 'in_use', 'not_owner'],
+	409: ['conflict', 'stale', 'frozen', 'in_use', 'not_owner', 'invalid_transition', 'too_late'],
 	413: ['too_large'],
 	415: ['not_pdf', 'unsupported_media_type'],
 	422: ['unreadable_pdf', 'encrypted_pdf', 'too_many_pages', 'duplicate_revision', 'invalid_rows'],

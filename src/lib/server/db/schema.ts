@@ -1,7 +1,9 @@
+import { sql } from 'drizzle-orm';
 import {
 	bigint,
 	bigserial,
 	boolean,
+	check,
 	jsonb,
 	index,
 	integer,
@@ -22,6 +24,7 @@ import type { Characteristic } from '../../tolerance/feature';
 import type { RulebookTeam } from '../../tolerance/rulebook/types';
 import { featureKinds } from '../../features';
 import { FIT_INTENTS, type TemperatureInput } from '../../tolerance/fit';
+import { findingKinds, findingStates, severities } from '../../findings';
 
 // Auth.js tables (shape expected by @auth/drizzle-adapter); sessions are JWTs, so no sessions table.
 export const users = pgTable('users', {
@@ -260,6 +263,8 @@ export const drawings = pgTable(
 		notes: text('notes').notNull().default(''),
 		// Balloon numbers are per drawing and never reused: the next one is counted here.
 		nextBalloon: integer('next_balloon').notNull().default(1),
+		// Finding numbers too (F-1, F-2 …): per drawing, never reused.
+		nextFinding: integer('next_finding').notNull().default(1),
 		version: integer('version').notNull().default(1),
 		createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
@@ -411,6 +416,105 @@ export const fits = pgTable(
 );
 
 export type FitRow = typeof fits.$inferSelect;
+
+/** A checker's recorded decision on an open rule finding (PRODUCT.md §3): not a state. */
+export interface FindingWaiver {
+	by: string | null;
+	at: string;
+	reason: string;
+}
+
+/**
+ * Findings on a revision, numbered per drawing. A manual finding is raised by a person; a rule
+ * finding by the rulebook, keyed by its result (`ruleKey`: rule, subject, cause) so a later run
+ * finds it again. The state changes are kept in `finding_moves`.
+ */
+export const findings = pgTable(
+	'findings',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		teamId: uuid('team_id')
+			.notNull()
+			.references(() => teams.id, { onDelete: 'cascade' }),
+		drawingId: uuid('drawing_id')
+			.notNull()
+			.references(() => drawings.id, { onDelete: 'cascade' }),
+		revisionId: uuid('revision_id')
+			.notNull()
+			.references(() => revisions.id, { onDelete: 'cascade' }),
+		number: integer('number').notNull(),
+		kind: text('kind', { enum: findingKinds }).notNull().default('manual'),
+		rule: text('rule'),
+		ruleKey: text('rule_key'),
+		severity: text('severity', { enum: severities }).notNull(),
+		state: text('state', { enum: findingStates }).notNull().default('raised'),
+		text: text('text').notNull(),
+		featureId: uuid('feature_id').references(() => features.id, { onDelete: 'set null' }),
+		fitId: uuid('fit_id').references(() => fits.id, { onDelete: 'set null' }),
+		assigneeId: uuid('assignee_id').references(() => users.id, { onDelete: 'set null' }),
+		raisedBy: uuid('raised_by').references(() => users.id, { onDelete: 'set null' }),
+		location: jsonb('location').$type<MarkerLocation | null>(),
+		waiver: jsonb('waiver').$type<FindingWaiver | null>(),
+		carried: jsonb('carried').$type<{ from: string; confirmed: boolean } | null>(),
+		version: integer('version').notNull().default(1),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(table) => [
+		uniqueIndex('findings_revision_number_idx').on(table.revisionId, table.number),
+		uniqueIndex('findings_revision_rule_key_idx').on(table.revisionId, table.ruleKey),
+		index('findings_feature_idx').on(table.featureId),
+		index('findings_fit_idx').on(table.fitId)
+	]
+);
+
+/** Each state change of a finding: who, when, from what to what, and why. */
+export const findingMoves = pgTable(
+	'finding_moves',
+	{
+		id: bigserial('id', { mode: 'number' }).primaryKey(),
+		findingId: uuid('finding_id')
+			.notNull()
+			.references(() => findings.id, { onDelete: 'cascade' }),
+		from: text('from', { enum: findingStates }).notNull(),
+		to: text('to', { enum: findingStates }).notNull(),
+		message: text('message').notNull().default(''),
+		byId: uuid('by_id').references(() => users.id, { onDelete: 'set null' }),
+		at: timestamp('at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(table) => [index('finding_moves_finding_idx').on(table.findingId, table.id)]
+);
+
+/**
+ * A thread's comments: on a finding or on a feature (exactly one of the two). `body` is kept as
+ * typed; the HTML is rendered and sanitized when it is read.
+ */
+export const comments = pgTable(
+	'comments',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		teamId: uuid('team_id')
+			.notNull()
+			.references(() => teams.id, { onDelete: 'cascade' }),
+		findingId: uuid('finding_id').references(() => findings.id, { onDelete: 'cascade' }),
+		featureId: uuid('feature_id').references(() => features.id, { onDelete: 'cascade' }),
+		authorId: uuid('author_id').references(() => users.id, { onDelete: 'set null' }),
+		body: text('body').notNull(),
+		/** The members the body mentions, resolved when it was written (for notifications). */
+		mentions: jsonb('mentions').$type<string[]>().notNull().default([]),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		editedAt: timestamp('edited_at', { withTimezone: true })
+	},
+	(table) => [
+		index('comments_finding_idx').on(table.findingId, table.createdAt),
+		index('comments_feature_idx').on(table.featureId, table.createdAt),
+		check('comments_one_subject', sql`(${table.findingId} is null) <> (${table.featureId} is null)`)
+	]
+);
+
+export type FindingRow = typeof findings.$inferSelect;
+export type FindingMoveRow = typeof findingMoves.$inferSelect;
+export type CommentRow = typeof comments.$inferSelect;
 
 export type FeatureRow = typeof features.$inferSelect;
 export type UserRow = typeof users.$inferSelect;

@@ -1,5 +1,6 @@
 import { eq } from 'drizzle-orm';
 import { featureInput } from '$lib/schemas/features';
+import { findingInput, findingPatch } from '$lib/schemas/findings';
 import type { Db } from '../db/connect';
 import {
 	createDrawing,
@@ -10,6 +11,9 @@ import {
 } from '../db/queries/drawings';
 import { addFeature, type FeaturePlace } from '../features';
 import { addFit } from '../fits';
+import { addComment, findingThread } from '../comments';
+import { getFinding } from '../db/queries/findings';
+import { changeFinding, raiseFinding } from '../findings';
 import { fitCreate } from '$lib/schemas/fits';
 import { addMember, getTeamBySlug } from '../db/queries/teams';
 import type { Storage } from '../storage';
@@ -17,6 +21,7 @@ import { storeRevisionBytes } from '../uploads';
 import { demoDrawingPdf, demoDrawings } from './drawings';
 import { demoPeople } from './people';
 import { demoReviews, pumpAssembly } from './review';
+import { demoFindings, type DemoFinding, type DemoPerson } from './findings';
 import { createUser, getUserByEmail } from '../db/queries/users';
 import { drawings, teams, type Role, type TeamRow, type UserRow } from '../db/schema';
 import { hashPassword } from '../passwords';
@@ -51,10 +56,12 @@ export async function seedDemo(db: Db, password: string, storage: Storage, tempD
 		});
 	const team = await getTeamBySlug(db, 'kestrel');
 	const drafter = people.find((p) => p.role === 'drafter')?.user;
-	if (team && drafter) {
+	const checker = people.find((p) => p.role === 'checker')?.user;
+	if (team && drafter && checker) {
 		await seedDrawings(db, storage, tempDir, team.id, drafter);
 		const seeded = await seedFeatures(db, team, drafter);
 		await seedFits(db, team, drafter, seeded);
+		await seedFindings(db, team, { checker, drafter }, seeded);
 	}
 }
 
@@ -203,5 +210,69 @@ async function seedFits(
 			})
 		);
 		if (!added.ok) throw new Error(`Demo fit ${fit.id}: ${added.message}`);
+	}
+}
+
+/** Where a demo finding points: at its callout, or an area starting near it. */
+function demoLocation(finding: DemoFinding) {
+	const demo = demoDrawings.find((d) => d.number === finding.drawing);
+	const c = demo?.callouts.find((c) => c.kind === finding.at.kind && c.text === finding.at.text);
+	if (!c) return null;
+	const { area } = finding.at;
+	if (!area) return { sheet: c.sheet, x: c.x, y: c.y };
+	const x = Math.max(0, c.x - 0.02);
+	const y = Math.max(0, c.y - area.h / 2);
+	return { sheet: c.sheet, x, y, w: Math.min(area.w, 1 - x), h: Math.min(area.h, 1 - y) };
+}
+
+/**
+ * The demo checker's manual findings and their threads with the drafter (demo/findings.ts),
+ * on the drawings whose features were seeded in this run and which have no finding yet.
+ */
+async function seedFindings(
+	db: Db,
+	team: TeamRow,
+	people: Record<DemoPerson, UserRow>,
+	seeded: Map<string, { id: string; place: FeaturePlace }>
+) {
+	const places = new Map(
+		[...seeded.values()].map((s) => [s.place.drawing.number, { ...s.place, team }])
+	);
+	for (const demo of demoFindings) {
+		const place = places.get(demo.drawing);
+		if (!place) continue;
+		const raised = await raiseFinding(
+			db,
+			people.checker,
+			place,
+			findingInput.parse({
+				text: demo.text,
+				severity: demo.severity,
+				featureId: demo.feature ? (seeded.get(demo.feature)?.id ?? null) : null,
+				assigneeId: demo.assignDrafter ? people.drafter.id : null,
+				location: demoLocation(demo)
+			})
+		);
+		if (!raised.ok) throw new Error(`Demo finding on ${demo.drawing}: ${raised.message}`);
+		let finding = (await getFinding(db, place.revision.id, raised.finding.id))!;
+		for (const step of demo.steps) {
+			const asker = { user: people[step.by], role: step.by };
+			const done =
+				'comment' in step
+					? await addComment(db, asker, findingThread(place, finding), step.comment)
+					: await changeFinding(
+							db,
+							asker,
+							place,
+							finding,
+							findingPatch.parse({
+								state: step.to,
+								message: step.message,
+								version: finding.version
+							})
+						);
+			if (!done.ok) throw new Error(`Demo thread on ${demo.drawing}: ${done.message}`);
+			finding = (await getFinding(db, place.revision.id, finding.id))!;
+		}
 	}
 }

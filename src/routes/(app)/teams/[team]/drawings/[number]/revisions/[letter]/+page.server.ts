@@ -5,6 +5,8 @@ import { db } from '$lib/server/db';
 import { publicDrawing, publicRevision, updateRevision } from '$lib/server/db/queries/drawings';
 import { getUserById } from '$lib/server/db/queries/users';
 import { isFrozen } from '$lib/server/db/schema';
+import { listFindings } from '$lib/server/db/queries/findings';
+import { countFindings } from '$lib/findings';
 import { requireRevision } from '$lib/server/drawings';
 import { featuresOf } from '$lib/server/features';
 import { fieldErrorsOf, refuseForm } from '$lib/server/forms';
@@ -15,6 +17,7 @@ export const load: PageServerLoad = async ({ params }) => {
 	const { drawing, revision, membership } = place;
 	const uploader = revision.uploadedBy ? await getUserById(db, revision.uploadedBy) : null;
 	const frozen = isFrozen(revision.state);
+	const findingCounts = countFindings(await listFindings(db, revision.id));
 	return {
 		drawing: publicDrawing(drawing),
 		revision: {
@@ -27,7 +30,8 @@ export const load: PageServerLoad = async ({ params }) => {
 			// The board is read-only without it, and on a frozen revision for everyone.
 			editFeatures: can(membership.role, 'editFeatures') && !frozen,
 			editSettings: can(membership.role, 'author') && !frozen
-		}
+		},
+		findingCounts
 	};
 };
 

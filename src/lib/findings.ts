@@ -1,0 +1,130 @@
+/*
+ * Findings (PRODUCT.md §3): their kinds, severities and the state machine, as the API names
+ * them. No server or database import: safe in the browser.
+ */
+import type { z } from 'zod';
+import type {
+	commentResponse,
+	findingInput,
+	findingPatch,
+	findingResponse
+} from '$lib/schemas/findings';
+import type { Severity } from '$lib/tolerance/rulebook';
+import { writeViewLink } from '$lib/board/view-params';
+import type { MarkerLocation } from '$lib/features';
+
+/** `manual`: raised by a person; `rule`: raised by the rulebook, keyed by its result. */
+export const findingKinds = ['manual', 'rule'] as const;
+export type FindingKind = (typeof findingKinds)[number];
+
+export const severities = [
+	'critical',
+	'major',
+	'minor',
+	'note'
+] as const satisfies readonly Severity[];
+
+export const findingStates = ['raised', 'answered', 'resolved', 'verified', 'withdrawn'] as const;
+export type FindingState = (typeof findingStates)[number];
+
+/** "Open" means raised or answered. */
+export const openStates: readonly FindingState[] = ['raised', 'answered'];
+export const isOpen = (state: FindingState) => openStates.includes(state);
+
+/**
+ * The machine: from each state, the states a finding may go to. `raised → answered → resolved →
+ * verified`; an open finding may be withdrawn; reopening returns any other state to `raised`.
+ */
+export const findingMoves: Record<FindingState, readonly FindingState[]> = {
+	raised: ['answered', 'withdrawn'],
+	answered: ['resolved', 'withdrawn', 'raised'],
+	resolved: ['verified', 'raised'],
+	verified: ['raised'],
+	withdrawn: ['raised']
+};
+
+export const canMove = (from: FindingState, to: FindingState) => findingMoves[from].includes(to);
+
+/** What each move is called on screen and in the trail. */
+export const moveNames: Record<FindingState, string> = {
+	raised: 'reopen',
+	answered: 'answer',
+	resolved: 'resolve',
+	verified: 'verify',
+	withdrawn: 'withdraw'
+};
+
+/** Moves that need a message saying why. */
+export const needsMessage: readonly FindingState[] = ['withdrawn', 'raised'];
+
+export const stateLabels: Record<FindingState, string> = {
+	raised: 'Raised',
+	answered: 'Answered',
+	resolved: 'Resolved',
+	verified: 'Verified',
+	withdrawn: 'Withdrawn'
+};
+
+export const severityLabels: Record<Severity, string> = {
+	critical: 'Critical',
+	major: 'Major',
+	minor: 'Minor',
+	note: 'Note'
+};
+
+/** A finding is shown as F-12. */
+export const findingName = (number: number) => `F-${number}`;
+
+/** The board's marker id of a finding (the `show` view parameter). */
+export const findingMarkerId = (id: string) => `finding-${id}`;
+
+/**
+ * The board's address showing a finding: its sheet, centred on its marker (an area's middle),
+ * and the marker to fly to (view parameters of `$lib/board/view-params`).
+ */
+export function boardHref(revisionPath: string, id: string, location: MarkerLocation | null) {
+	if (!location) return null;
+	const centre = { x: location.x + (location.w ?? 0) / 2, y: location.y + (location.h ?? 0) / 2 };
+	const query = writeViewLink(new URLSearchParams(), {
+		sheet: location.sheet,
+		centre,
+		show: findingMarkerId(id)
+	});
+	return `${revisionPath}?${query}`;
+}
+
+/** One finding as the API answers it. */
+export type FindingJson = z.output<typeof findingResponse>;
+/** POST …/revisions/{letter}/findings */
+export type NewFinding = z.input<typeof findingInput>;
+/** PATCH …/findings/{id} */
+export type FindingChanges = z.input<typeof findingPatch>;
+/** One comment of a thread. */
+export type CommentJson = z.output<typeof commentResponse>;
+
+/** How long after posting a comment its author may still edit it. */
+export const commentEditMinutes = 10;
+export const canStillEdit = (createdAt: Date | string, now = Date.now()) =>
+	now - new Date(createdAt).getTime() <= commentEditMinutes * 60_000;
+
+/** Counts of findings by state and by severity, all and open only (the revision's summary). */
+export function countFindings(list: readonly { state: FindingState; severity: Severity }[]) {
+	const zero = <K extends string>(keys: readonly K[]) =>
+		Object.fromEntries(keys.map((k) => [k, 0])) as Record<K, number>;
+	const counts = {
+		total: list.length,
+		open: 0,
+		byState: zero(findingStates),
+		bySeverity: zero(severities),
+		openBySeverity: zero(severities)
+	};
+	for (const f of list) {
+		counts.byState[f.state] += 1;
+		counts.bySeverity[f.severity] += 1;
+		if (isOpen(f.state)) {
+			counts.open += 1;
+			counts.openBySeverity[f.severity] += 1;
+		}
+	}
+	return counts;
+}

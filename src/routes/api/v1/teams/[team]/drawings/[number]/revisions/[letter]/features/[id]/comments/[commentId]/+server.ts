@@ -1,0 +1,3 @@
+import { commentRoutes } from '$lib/server/thread-routes';
+
+export const { PATCH } = commentRoutes('feature');

@@ -1,0 +1,3 @@
+import { threadRoutes } from '$lib/server/thread-routes';
+
+export const { GET, POST } = threadRoutes('finding');
