@@ -31,7 +31,9 @@ describe("a revision's features and fits tables", () => {
 			.getByRole('row', { name: /Ø12 H7/ })
 			.getByRole('button', { name: /Pair #\d+ Bore with/ })
 			.click();
-		const dialog = page.getByRole('dialog', { name: /Pair KF-1003 A #\d+ Bore with/ });
+		await page.getByRole('dialog', { name: /Pair KF-1003 A #\d+ Bore with/ }).waitFor();
+		// The dialog's title turns to "Fit saved" once the fit is added.
+		const dialog = page.getByRole('dialog');
 		const search = dialog.getByRole('combobox', { name: 'Shaft or pin that goes in' });
 		await search.fill('KF-1002 g6');
 		await dialog.getByRole('option', { name: /KF-1002 A #\d+ Journal/ }).waitFor();
@@ -76,15 +78,22 @@ describe("a revision's features and fits tables", () => {
 		await table.getByRole('row', { name: /Slot width/ }).waitFor();
 		const all = await table.locator('tbody tr').count();
 		expect(all).toBeGreaterThan(2);
-		await page.getByPlaceholder(/Filter: balloon/).fill('dowel');
+		// Sorting: the limits column in order of exact value, then the other way.
+		const limits = table.getByRole('columnheader', { name: 'Limits' });
+		const firstLabel = () => table.locator('tbody tr').first().locator('td').nth(1).textContent();
+		await limits.getByRole('button').click();
+		await expect(limits.getAttribute('aria-sort')).resolves.toBe('ascending');
+		await expect(firstLabel()).resolves.toBe('Dowel holes'); // Ø6 H7: 6.000 – 6.012
+		await limits.getByRole('button').click();
+		await expect(firstLabel()).resolves.toBe('Bushing bore'); // Ø18 H7: 18.000 – 18.018
+		await page.getByPlaceholder('Filter features').fill('dowel');
 		await expect(table.locator('tbody tr').count()).resolves.toBe(1);
 		await expect(page.getByTestId('table-count').first().textContent()).resolves.toMatch(
 			new RegExp(`1 of ${all} rows match`)
 		);
 		await shot('features-filtered');
-		// Keyboard: Tab from the filter box into the table, then Enter on the row.
-		await page.getByPlaceholder(/Filter: balloon/).focus();
-		await page.keyboard.press('Tab');
+		// Keyboard: down arrow from the filter box into the rows, then Enter on the row.
+		await page.getByPlaceholder('Filter features').press('ArrowDown');
 		await expect(page.evaluate(() => document.activeElement?.textContent ?? '')).resolves.toContain(
 			'Dowel holes'
 		);
