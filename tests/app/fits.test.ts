@@ -1,5 +1,6 @@
 import Papa from 'papaparse';
 import { beforeAll, describe, expect, it } from 'vitest';
+import type { Client } from './client';
 import { actors, draftRevision, roleClients, type Actor } from './revisions';
 
 let clients: Awaited<ReturnType<typeof roleClients>>['clients'];
@@ -88,6 +89,10 @@ describe('fits through the API', () => {
 			hole: { upper: '12.018', lower: '12.000' },
 			shaft: { upper: '11.994', lower: '11.983' }
 		});
+		// The fit diagram: our own SVG with both zones' limits written on it.
+		expect(fit.diagramSvg).toMatch(/^<svg [^>]*role="img"/);
+		expect(fit.diagramSvg).toContain('12.018');
+		expect(fit.diagramSvg).not.toContain('<script');
 		// ISO 8015 on the bushing: no envelope; ASME Y14.5 on the shaft drawing: Rule #1.
 		expect(fit.hole.envelope.applies).toBe(false);
 		expect(fit.shaft.envelope.applies).toBe(true);
@@ -142,6 +147,47 @@ describe('fits through the API', () => {
 			})
 		).json();
 		expect((await clients.outsider.api('GET', `${theirs.path}/fits/${fit.id}`)).status).toBe(404);
+	});
+});
+
+describe('finding a feature to pair with across the team', () => {
+	it('matches every word against number, label, callout or balloon, holes or shafts only', async () => {
+		const { bushing, shaft, hole, pin } = await twoDrawings();
+		const find = async (client: Client, query: string) => {
+			const response = await client.api('GET', `/teams/kestrel/features?${query}`);
+			return { status: response.status, body: await response.json() };
+		};
+		const byWords = await find(clients.checker, `q=${encodeURIComponent(`${shaft.number} journ`)}`);
+		expect(byWords.status).toBe(200);
+		expect(byWords.body).toEqual([
+			{
+				featureId: pin.id,
+				drawing: shaft.number,
+				title: 'Shaft',
+				letter: 'A',
+				state: 'draft',
+				balloon: 1,
+				label: 'Journal',
+				kind: 'shaft',
+				internal: false,
+				callout: 'Ø12 g6',
+				quantity: 1
+			}
+		]);
+		const byBalloon = await find(clients.drafter, `q=${bushing.number}+%231`);
+		expect(byBalloon.body.map((f: { featureId: string }) => f.featureId)).toEqual([hole.id]);
+		const shaftsOnly = await find(clients.drafter, `q=${bushing.number}&internal=false`);
+		expect(shaftsOnly.body).toEqual([]);
+		// A LIKE wildcard is a character to look for, not "anything".
+		expect((await find(clients.drafter, `q=${bushing.number}%25`)).body).toEqual([]);
+		// Supplier quality finds released revisions only; these are drafts.
+		expect((await find(clients.quality, `q=${shaft.number}`)).body).toEqual([]);
+		expect((await find(clients.outsider, `q=${shaft.number}`)).status).toBe(404);
+		expect((await find(clients.signedOut, `q=${shaft.number}`)).status).toBe(401);
+		const empty = await find(clients.drafter, 'q=');
+		expect(empty.status).toBe(400);
+		expect(empty.body.error.code).toBe('invalid');
+		expect((await find(clients.drafter, 'q=x&limit=500')).status).toBe(400);
 	});
 });
 

@@ -148,3 +148,40 @@ export const featureResponse = z.object({
 		})
 	)
 });
+
+/** GET /teams/{team}/features?q=: features of any drawing of the team, to pair in a fit. */
+export const featureSearchQuery = z.object({
+	q: z
+		.string({ error: 'Send ?q= with a drawing number, label, callout or balloon' })
+		.trim()
+		.min(1, { error: 'Send ?q= with a drawing number, label, callout or balloon' })
+		.max(100, { error: 'q is at most 100 characters' }),
+	/** true: holes only; false: shafts and pins only; absent: both. */
+	internal: z
+		.enum(['true', 'false'], { error: 'internal is true or false' })
+		.transform((v) => v === 'true')
+		.optional(),
+	limit: z.coerce
+		.number({ error: 'limit must be a number' })
+		.int({ error: 'limit must be a whole number' })
+		.min(1, { error: 'limit must be between 1 and 50' })
+		.max(50, { error: 'limit must be between 1 and 50' })
+		.default(20)
+});
+export type FeatureSearch = z.output<typeof featureSearchQuery>;
+
+/** One feature found by the team search, with where it sits. */
+export const featureMatch = z.object({
+	featureId: z.uuid(),
+	drawing: z.string().describe('The drawing number'),
+	title: z.string().describe("The drawing's title"),
+	letter: z.string().describe('The revision letter'),
+	state: z.string().describe("The revision's state"),
+	balloon: z.number().int(),
+	label: z.string(),
+	kind: z.enum(featureKinds),
+	internal: z.boolean(),
+	callout: z.string(),
+	quantity: z.number().int()
+});
+export type FeatureMatch = z.output<typeof featureMatch>;

@@ -133,5 +133,11 @@ export const fitResponse = z.object({
 	verdict: z.enum(['pass', 'fail', 'undetermined']).optional(),
 	checks: z.array(z.object({ what: z.string(), ok: z.boolean(), text: z.string() })).optional(),
 	fastenerBudget: z.record(z.string(), z.unknown()).optional(),
+	diagramSvg: z
+		.string()
+		.optional()
+		.describe(
+			'The fit diagram: an SVG image (320 × 266) of the hole and shaft tolerance zones against the zero line, to scale, with the clearances marked; every text in it escaped'
+		),
 	caution: z.string().optional()
 });

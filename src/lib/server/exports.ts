@@ -3,7 +3,8 @@
  * (strings as they are, booleans as true/false, nothing as an empty cell).
  */
 import { featuresOf, type FeaturePlace } from './features';
-import { fitsOf, type FitJson, type FitPlace } from './fits';
+import { memberName } from '$lib/fits';
+import { fitsOf, type FitPlace } from './fits';
 import { csvResponse, toCsv } from './csv';
 import type { Db } from './db/connect';
 
@@ -82,9 +83,6 @@ export const fitColumns = [
 	'problem',
 	'version'
 ] as const;
-
-const memberName = (m: FitJson['members']['hole']) =>
-	`${m.drawing} ${m.letter} #${m.balloon}${m.label ? ` ${m.label}` : ''}`;
 
 export async function fitsCsv(db: Db, place: FitPlace) {
 	const rows = (await fitsOf(db, place)).map((f) => [

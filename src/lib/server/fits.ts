@@ -6,6 +6,7 @@
  * notes, through the core's per-member drawing context; the answer uses the calc API's fit JSON.
  */
 import { fitJson } from '$lib/calc-api';
+import { fitDiagramSvg } from '$lib/tolerance/fit-diagram';
 import type { FitCreate, FitPatch } from '$lib/schemas/fits';
 import {
 	evaluateFit,
@@ -199,6 +200,8 @@ function fitAnswer(place: FitPlace, row: FitRow, m: Members): FitJson {
 		// The stored fastener `{callout, label}` with its computed size beside it.
 		fastener: row.fastener ? { ...row.fastener, size: fastenerSize ?? null } : null,
 		temperature: row.temperature ? { ...row.temperature, ...thermal } : null,
+		// Our own SVG (every text escaped): the zones to scale against the zero line.
+		diagramSvg: fitDiagramSvg(result),
 		problem: null
 	};
 }

@@ -1,7 +1,14 @@
 import { z } from 'zod';
 import { adviseInput, fitInput, sizeInput, sizeQuery } from '$lib/schemas/calc';
 import { drawingInput, drawingPatch, revisionPatch } from '$lib/schemas/drawings';
-import { deleteQuery, featureInput, featurePatch, featureResponse } from '$lib/schemas/features';
+import {
+	deleteQuery,
+	featureInput,
+	featureMatch,
+	featurePatch,
+	featureResponse,
+	featureSearchQuery
+} from '$lib/schemas/features';
 import { fitCreate, fitPatch, fitResponse } from '$lib/schemas/fits';
 import {
 	commentInput,
@@ -89,6 +96,15 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 		get: {
 			summary: 'The append-only activity trail, newest first',
 			query: activityQuery,
+			success: 200
+		}
+	},
+	'/teams/{team}/features': {
+		get: {
+			summary:
+				'Find features on any drawing of the team (to pair in a fit): every word of q matches the drawing number, label or callout, or the balloon (12 or #12); newest revision first; supplier quality finds released revisions only',
+			query: featureSearchQuery,
+			response: z.array(featureMatch),
 			success: 200
 		}
 	},

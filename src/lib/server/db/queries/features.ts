@@ -1,15 +1,17 @@
-import { and, asc, eq, or, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, ilike, inArray, or, sql } from 'drizzle-orm';
 import type { Db } from '../connect';
 import {
 	drawings,
 	features,
 	fits,
+	revisions,
 	type DrawingRow,
 	type FeatureRow,
 	type RevisionRow
 } from '../schema';
 import { recordActivity, type Actor } from './activity';
 import { lockOpenRevision, StaleWrite, writeOnRevision } from './revision-writes';
+import { visibleToSuppliers } from './drawings';
 
 export type FeatureValues = Omit<
 	typeof features.$inferInsert,
@@ -212,4 +214,56 @@ export async function deleteFeature(
 async function currentFeature(tx: Db, id: string) {
 	const [current] = await tx.select().from(features).where(eq(features.id, id));
 	return current ?? null;
+}
+
+const likePattern = (word: string) => `%${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+/**
+ * Features of the team's drawings that match every word of `q` in the drawing number, the
+ * label or the callout, or by balloon (`12`, `#12`); newest revision first per drawing.
+ * `releasedOnly` keeps to revisions supplier quality may read.
+ */
+export async function searchFeatures(
+	db: Db,
+	teamId: string,
+	search: { q: string; internal?: boolean; limit: number; releasedOnly: boolean }
+) {
+	const words = search.q.split(/\s+/).filter(Boolean).slice(0, 6);
+	const matches = words.map((word) => {
+		const like = likePattern(word);
+		const balloon = /^#?\d{1,6}$/.test(word) ? Number(word.replace('#', '')) : null;
+		return or(
+			ilike(drawings.number, like),
+			ilike(features.label, like),
+			ilike(features.callout, like),
+			balloon === null ? undefined : eq(features.balloon, balloon)
+		);
+	});
+	return db
+		.select({
+			featureId: features.id,
+			drawing: drawings.number,
+			title: drawings.title,
+			letter: revisions.letter,
+			state: revisions.state,
+			balloon: features.balloon,
+			label: features.label,
+			kind: features.kind,
+			internal: features.internal,
+			callout: features.callout,
+			quantity: features.quantity
+		})
+		.from(features)
+		.innerJoin(revisions, eq(revisions.id, features.revisionId))
+		.innerJoin(drawings, eq(drawings.id, features.drawingId))
+		.where(
+			and(
+				eq(drawings.teamId, teamId),
+				search.releasedOnly ? inArray(revisions.state, visibleToSuppliers) : undefined,
+				search.internal === undefined ? undefined : eq(features.internal, search.internal),
+				...matches
+			)
+		)
+		.orderBy(asc(drawings.number), desc(revisions.createdAt), asc(features.balloon))
+		.limit(search.limit);
 }

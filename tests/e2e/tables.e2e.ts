@@ -1,0 +1,114 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { settled } from './board-drawing';
+import { launchBrowser, signIn } from './browser';
+
+const baseUrl = inject('baseUrl');
+let browser: Browser;
+let context: BrowserContext;
+let page: Page;
+
+/** Screenshots to look at by hand (PNG under /tmp). */
+const shot = (name: string) => page.screenshot({ path: `/tmp/h20ui-${name}.png`, fullPage: true });
+
+beforeAll(async () => {
+	browser = await launchBrowser();
+	context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+	page = await context.newPage();
+	await signIn(page, baseUrl, 'checker@example.test');
+});
+
+afterAll(async () => {
+	await browser?.close();
+});
+
+describe("a revision's features and fits tables", () => {
+	it('the checker pairs Ø12 H7 on the bushing drawing with Ø12 g6 on the shaft drawing', async () => {
+		await page.goto(`${baseUrl}/teams/kestrel/drawings/KF-1003/revisions/A/tables`);
+		const features = page.getByRole('table', { name: 'Features' });
+		await features.getByRole('row', { name: /Ø12 H7/ }).waitFor();
+		await features
+			.getByRole('row', { name: /Ø12 H7/ })
+			.getByRole('button', { name: /Pair #\d+ Bore with/ })
+			.click();
+		await page.getByRole('dialog', { name: /Pair KF-1003 A #\d+ Bore with/ }).waitFor();
+		// The dialog's title turns to "Fit saved" once the fit is added.
+		const dialog = page.getByRole('dialog');
+		const search = dialog.getByRole('combobox', { name: 'Shaft or pin that goes in' });
+		await search.fill('KF-1002 g6');
+		await dialog.getByRole('option', { name: /KF-1002 A #\d+ Journal/ }).waitFor();
+		await search.press('Enter');
+		await expect(dialog.getByTestId('fit-other-picked').textContent()).resolves.toContain(
+			'Journal'
+		);
+		await dialog.getByLabel('The fit is meant as').selectOption('running');
+		await dialog.getByRole('button', { name: 'Add fit' }).click();
+		const view = dialog.getByTestId('fit-view');
+		await view.waitFor();
+		// ISO 286-2:2010, tables 2 and 17: H7 over 10 to 18 mm is 0/+0.018, g6 −0.006/−0.017, so
+		// 0.006 at MMC and 0.035 at LMC.
+		await expect(view.getByTestId('min-clearance').textContent()).resolves.toBe('0.006');
+		await expect(view.getByTestId('max-clearance').textContent()).resolves.toBe('0.035');
+		await expect(view.getByTestId('classification').textContent()).resolves.toContain('clearance');
+		const diagram = view.getByTestId('fit-diagram').locator('svg');
+		await expect(diagram.getAttribute('role')).resolves.toBe('img');
+		expect((await diagram.boundingBox())!.width).toBeGreaterThan(200);
+		await shot('fit-dialog');
+		await dialog.getByRole('button', { name: 'Done' }).click();
+
+		// The new fit is in the fits table; the shaft drawing lists it read-only.
+		const fits = page.getByRole('table', { name: 'Fits' });
+		await fits
+			.getByRole('row', { name: /Journal.*0\.006.*0\.035/ })
+			.first()
+			.waitFor();
+		await page.goto(`${baseUrl}/teams/kestrel/drawings/KF-1002/revisions/A/tables`);
+		await page
+			.getByRole('table', { name: 'Fits' })
+			.getByRole('row', { name: /Journal.*read-only/ })
+			.first()
+			.click();
+		await page.getByTestId('fit-read-only').waitFor();
+		expect(await page.getByRole('button', { name: 'Edit fit' }).count()).toBe(0);
+	});
+
+	it('filters the features table and flies the board to the row picked by keyboard', async () => {
+		await page.goto(`${baseUrl}/teams/kestrel/drawings/KF-1001/revisions/A/tables`);
+		const table = page.getByRole('table', { name: 'Features' });
+		await table.getByRole('row', { name: /Slot width/ }).waitFor();
+		const all = await table.locator('tbody tr').count();
+		expect(all).toBeGreaterThan(2);
+		// Sorting: the limits column in order of exact value, then the other way.
+		const limits = table.getByRole('columnheader', { name: 'Limits' });
+		const firstLabel = () => table.locator('tbody tr').first().locator('td').nth(1).textContent();
+		await limits.getByRole('button').click();
+		await expect(limits.getAttribute('aria-sort')).resolves.toBe('ascending');
+		await expect(firstLabel()).resolves.toBe('Dowel holes'); // Ø6 H7: 6.000 – 6.012
+		await limits.getByRole('button').click();
+		await expect(firstLabel()).resolves.toBe('Bushing bore'); // Ø18 H7: 18.000 – 18.018
+		await page.getByPlaceholder('Filter features').fill('dowel');
+		await expect(table.locator('tbody tr').count()).resolves.toBe(1);
+		await expect(page.getByTestId('table-count').first().textContent()).resolves.toMatch(
+			new RegExp(`1 of ${all} rows match`)
+		);
+		await shot('features-filtered');
+		// Keyboard: down arrow from the filter box into the rows, then Enter on the row.
+		await page.getByPlaceholder('Filter features').press('ArrowDown');
+		await expect(page.evaluate(() => document.activeElement?.textContent ?? '')).resolves.toContain(
+			'Dowel holes'
+		);
+		await page.keyboard.press('Enter');
+		await page.waitForURL(/\/revisions\/A\?/);
+		const url = new URL(page.url());
+		expect(url.searchParams.get('sheet')).toBe('1');
+		expect(url.searchParams.get('zoom')).toBe('200');
+		expect(url.searchParams.get('show')).toMatch(/^feature-[0-9a-f-]{36}$/);
+		const [x, y] = url.searchParams.get('centre')!.split(',').map(Number);
+		const facts = await settled(page);
+		// The board opened where the table asked: 200 %, centred on the feature's marker.
+		expect(facts.zoomPercent).toBeCloseTo(200, 0);
+		expect(facts.view.centre.x).toBeCloseTo(x, 2);
+		expect(facts.view.centre.y).toBeCloseTo(y, 2);
+		await shot('board-from-table');
+	});
+});
