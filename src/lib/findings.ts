@@ -10,8 +10,10 @@ import type {
 	findingResponse
 } from '$lib/schemas/findings';
 import type { Severity } from '$lib/tolerance/rulebook';
+import type { Marker, MarkerFinish } from '$lib/board/markers';
 import { writeViewLink } from '$lib/board/view-params';
 import type { MarkerLocation } from '$lib/features';
+import { roleLabels, type RoleName } from '$lib/roles';
 
 /** `manual`: raised by a person; `rule`: raised by the rulebook, keyed by its result. */
 export const findingKinds = ['manual', 'rule'] as const;
@@ -72,11 +74,95 @@ export const severityLabels: Record<Severity, string> = {
 	note: 'Note'
 };
 
+/**
+ * What one person may do to findings: their id and role, and the capabilities it gives
+ * (`raiseFindings`, `answerFindings`, `judgeFindings` of the server's capability table).
+ */
+export interface FindingPowers {
+	userId: string;
+	role: RoleName;
+	raise: boolean;
+	answer: boolean;
+	judge: boolean;
+}
+
+type Judged = { state: FindingState; number: number; assigneeId: string | null };
+
+/**
+ * Why this person may not move the finding to `to`, or null when their role allows it: answering
+ * is for whoever may answer (the assignee when there is one); every other move is a judge's.
+ * Whether the machine has the move is `canMove`'s.
+ */
+export function moveRefused(who: FindingPowers, finding: Judged, to: FindingState): string | null {
+	const role = roleLabels[who.role];
+	if (to === 'answered') {
+		if (!who.answer) return `Your role (${role}) does not answer findings`;
+		if (finding.assigneeId && finding.assigneeId !== who.userId) {
+			return `${findingName(finding.number)} is assigned to someone else to answer`;
+		}
+		return null;
+	}
+	return who.judge ? null : `Your role (${role}) does not ${moveNames[to]} findings`;
+}
+
+/** The states this person may move the finding to now: their role allows it and the machine has it. */
+export const movesAllowed = (who: FindingPowers, finding: Judged) =>
+	findingMoves[finding.state].filter((to) => !moveRefused(who, finding, to));
+
+/** Why this person may not edit the finding's fields (its place among them), or null. */
+export function editRefused(
+	who: FindingPowers,
+	finding: { number: number; raisedBy: string | null }
+): string | null {
+	if (!who.raise) return `Your role (${roleLabels[who.role]}) does not edit findings`;
+	if (!who.judge && finding.raisedBy !== who.userId) {
+		return `Only whoever raised ${findingName(finding.number)} or a checker edits it`;
+	}
+	return null;
+}
+
 /** A finding is shown as F-12. */
 export const findingName = (number: number) => `F-${number}`;
 
 /** The board's marker id of a finding (the `show` view parameter). */
 export const findingMarkerId = (id: string) => `finding-${id}`;
+
+/** A marker's id back to the finding's id (`new` for one being raised), or null. */
+export const findingIdOf = (markerId: string) =>
+	markerId.startsWith('finding-') ? markerId.slice('finding-'.length) : null;
+
+/** How far along a finding is, drawn by its marker's fill (not only its colour). */
+const finishes: Record<FindingState, MarkerFinish> = {
+	raised: 'solid',
+	answered: 'half',
+	resolved: 'hollow',
+	verified: 'hollow',
+	withdrawn: 'dashed'
+};
+
+/**
+ * A placed finding's marker: a tag (a feature's is a balloon) in its severity's colour, filled
+ * by its state, `F-12` on it (a tick once verified); an area finding also draws its cloud.
+ */
+export function findingMarker(
+	f: Pick<FindingJson, 'id' | 'number' | 'severity' | 'state' | 'text'> & {
+		location: MarkerLocation;
+	},
+	movable: boolean
+): Marker {
+	const text = f.text.length > 80 ? `${f.text.slice(0, 79)}…` : f.text;
+	return {
+		id: findingMarkerId(f.id),
+		label: `${findingName(f.number)}${f.state === 'verified' ? '✓' : ''}`,
+		title: `${findingName(f.number)} · ${severityLabels[f.severity]} · ${stateLabels[f.state]}: ${text}`,
+		tone: f.severity,
+		location: f.location,
+		shape: 'tag',
+		finish: finishes[f.state],
+		...(f.location.w !== undefined && { outline: 'cloud' as const }),
+		movable
+	};
+}
 
 /**
  * The board's address showing a finding: its sheet, centred on its marker (an area's middle),

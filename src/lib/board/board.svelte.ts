@@ -2,6 +2,7 @@ import type { PDFPageProxy } from 'pdfjs-dist';
 import { browser } from '$app/environment';
 import type { MarkerLayer } from './marker-layer';
 import {
+	areaBetween,
 	markerAt,
 	markerCentre,
 	movedLocation,
@@ -66,6 +67,10 @@ export class BoardState {
 	highlighted = $state.raw<string[]>([]);
 	/** Place mode: what a click on the sheet places (said on the sheet), or null. */
 	placing = $state<string | null>(null);
+	/** In place mode, a drag on the sheet marks an area (else it moves the sheet). */
+	placesAreas = $state(false);
+	/** The area being dragged out in place mode, in viewport pixels. */
+	sketch = $state.raw<{ x: number; y: number; width: number; height: number } | null>(null);
 	/** Nothing moving and no drawing under way: what is shown is final (for tests and the bench). */
 	idle = $state(false);
 	/** Figures for tests and the bench: milliseconds of the last picture and sharp drawings. */
@@ -457,6 +462,36 @@ export class BoardState {
 	placeAt(point: Point, item: string | null = null) {
 		if (!this.view) return;
 		this.events.onplace?.(this.locationAt(point), item);
+	}
+
+	/** Place mode: `words` say on the sheet what a click (or with `areas`, a drag) places. */
+	startPlacing(words: string, areas = false) {
+		this.placing = words;
+		this.placesAreas = areas;
+		this.sketch = null;
+	}
+
+	stopPlacing() {
+		this.placing = null;
+		this.placesAreas = false;
+		this.sketch = null;
+	}
+
+	/** Place mode with areas: the area dragged out from `from` to `to` (viewport pixels). */
+	sketchArea(from: Point, to: Point) {
+		this.sketch = {
+			x: Math.min(from.x, to.x),
+			y: Math.min(from.y, to.y),
+			width: Math.abs(to.x - from.x),
+			height: Math.abs(to.y - from.y)
+		};
+	}
+
+	/** The area dragged out is let go: the page gets it as an area location. */
+	placeArea(from: Point, to: Point) {
+		this.sketch = null;
+		if (!this.view) return;
+		this.events.onplace?.(areaBetween(this.sheet, this.toPage(from), this.toPage(to)), null);
 	}
 
 	dropMarker(id: string) {

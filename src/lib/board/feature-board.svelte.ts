@@ -74,14 +74,16 @@ export class FeatureBoard {
 		if (!this.editable || !this.board) return;
 		this.#placingFor = what;
 		const feature = this.features.find((f) => f.id === what);
-		this.board.placing = feature
-			? `Click where balloon ${feature.balloon} stands · Escape cancels`
-			: 'Click where the feature stands · Escape cancels';
+		this.board.startPlacing(
+			feature
+				? `Click where balloon ${feature.balloon} stands · Escape cancels`
+				: 'Click where the feature stands · Escape cancels'
+		);
 	}
 
 	stopPlacing() {
 		this.#placingFor = null;
-		if (this.board) this.board.placing = null;
+		this.board?.stopPlacing();
 	}
 
 	/** The sheet was clicked in place mode, or a feature from the tray dropped on it. */

@@ -5,6 +5,8 @@ import {
 	markerRadius,
 	visibleMarkers,
 	type Marker,
+	type MarkerFinish,
+	type MarkerShape,
 	type MarkerTone
 } from './markers';
 import { pageToScreen, scaleOf, visibleRegion, type PageSize, type Size, type View } from './view';
@@ -157,10 +159,12 @@ export class MarkerLayer {
 	}
 
 	#sprite(marker: Marker, look: Look, colour: string) {
-		const key = `${colour}|${look}|${marker.label}`;
+		const shape = marker.shape ?? 'balloon';
+		const finish = marker.finish ?? 'solid';
+		const key = `${colour}|${look}|${shape}|${finish}|${marker.label}`;
 		let sprite = this.#sprites.get(key);
 		if (!sprite) {
-			sprite = drawSprite(marker.label, colour, look);
+			sprite = drawSprite(marker.label, colour, look, shape, finish);
 			this.#sprites.set(key, sprite);
 		}
 		return sprite;
@@ -176,7 +180,13 @@ const spriteRatio = () => Math.max(1, Math.ceil(globalThis.devicePixelRatio || 1
 /** Room around the disc for the selection and focus rings. */
 const ringRoom = 6;
 
-function drawSprite(label: string, colour: string, look: Look) {
+function drawSprite(
+	label: string,
+	colour: string,
+	look: Look,
+	shape: MarkerShape,
+	finish: MarkerFinish
+) {
 	const ratio = spriteRatio();
 	const size = (markerRadius + ringRoom) * 2;
 	const canvas = document.createElement('canvas');
@@ -184,31 +194,68 @@ function drawSprite(label: string, colour: string, look: Look) {
 	const c = canvas.getContext('2d')!;
 	c.scale(ratio, ratio);
 	const middle = size / 2;
+	const path = shape === 'tag' ? tagPath : discPath;
 	if (look !== 'plain') {
-		c.beginPath();
-		c.arc(middle, middle, markerRadius + 4, 0, Math.PI * 2);
+		path(c, middle, 4);
 		c.lineWidth = look === 'highlighted' ? 4 : 2.5;
 		c.strokeStyle = look === 'highlighted' ? 'rgba(255, 196, 0, 0.9)' : '#1f2933';
 		if (look === 'focused') c.setLineDash([3, 2]);
 		c.stroke();
 		c.setLineDash([]);
 	}
-	c.beginPath();
-	c.arc(middle, middle, markerRadius, 0, Math.PI * 2);
-	c.fillStyle = colour;
+	const solid = finish === 'solid';
+	path(c, middle, 0);
+	c.fillStyle = solid ? colour : '#ffffff';
 	c.fill();
-	c.lineWidth = 1.5;
-	c.strokeStyle = '#ffffff';
+	if (finish === 'half') {
+		// Answered: the left half filled, the right half white.
+		c.save();
+		c.clip();
+		c.fillStyle = colour;
+		c.fillRect(0, 0, middle, size);
+		c.restore();
+	}
+	path(c, middle, 0);
+	c.lineWidth = solid ? 1.5 : 2;
+	c.strokeStyle = solid ? '#ffffff' : colour;
+	if (finish === 'dashed') c.setLineDash([3, 2]);
 	c.stroke();
+	c.setLineDash([]);
 	if (label) {
-		c.fillStyle = '#ffffff';
 		c.textAlign = 'center';
 		c.textBaseline = 'middle';
-		const fontSize = label.length > 3 ? 8 : 10;
+		const fontSize = label.length > 4 ? 8 : label.length > 3 ? 9 : 10;
 		c.font = `600 ${fontSize}px 'Noto Sans', sans-serif`;
-		c.fillText(label, middle, middle + 0.5, markerRadius * 2 - 3);
+		const width = shape === 'tag' ? size - 4 : markerRadius * 2 - 3;
+		if (finish === 'half') {
+			// White on the filled half, the colour on the white half, with a white halo to read.
+			c.lineWidth = 2.5;
+			c.strokeStyle = '#ffffff';
+			c.strokeText(label, middle, middle + 0.5, width);
+		}
+		c.fillStyle = solid ? '#ffffff' : colour;
+		c.fillText(label, middle, middle + 0.5, width);
 	}
 	return canvas;
+}
+
+/** A round balloon, `grow` CSS pixels larger for the rings. */
+function discPath(c: CanvasRenderingContext2D, middle: number, grow: number) {
+	c.beginPath();
+	c.arc(middle, middle, markerRadius + grow, 0, Math.PI * 2);
+}
+
+/** A tag: square-cornered, wider than high, with a point on its left (where it is pinned). */
+function tagPath(c: CanvasRenderingContext2D, middle: number, grow: number) {
+	const half = { w: middle - 5 + grow, h: markerRadius - 3 + grow };
+	const point = 5;
+	c.beginPath();
+	c.moveTo(middle - half.w, middle);
+	c.lineTo(middle - half.w + point, middle - half.h);
+	c.lineTo(middle + half.w, middle - half.h);
+	c.lineTo(middle + half.w, middle + half.h);
+	c.lineTo(middle - half.w + point, middle + half.h);
+	c.closePath();
 }
 
 function outline(

@@ -19,7 +19,17 @@ export interface Marker {
 	outline?: 'box' | 'cloud';
 	/** May be moved by dragging it. */
 	movable?: boolean;
+	/** A round balloon (features) or a square-cornered tag (findings), told apart by shape. */
+	shape?: MarkerShape;
+	/**
+	 * How far along it is, shown by its fill and not only by colour: solid (open), half
+	 * (answered), hollow (closed), dashed (withdrawn).
+	 */
+	finish?: MarkerFinish;
 }
+
+export type MarkerShape = 'balloon' | 'tag';
+export type MarkerFinish = 'solid' | 'half' | 'hollow' | 'dashed';
 
 /** The drag-and-drop type of an item dragged from beside the board onto a sheet (its id). */
 export const itemDragType = 'application/x-checkplate-item';
@@ -121,6 +131,14 @@ export function movedLocation(location: MarkerLocation, to: Point): MarkerLocati
 	const x = Math.min(1 - w, Math.max(0, to.x));
 	const y = Math.min(1 - h, Math.max(0, to.y));
 	return { ...location, x, y };
+}
+
+/** The area between two points of a sheet (page units), corners in either order, kept on it. */
+export function areaBetween(sheet: number, a: Point, b: Point): MarkerLocation {
+	const clamp = (v: number) => Math.min(1, Math.max(0, v));
+	const [x0, x1] = [clamp(Math.min(a.x, b.x)), clamp(Math.max(a.x, b.x))];
+	const [y0, y1] = [clamp(Math.min(a.y, b.y)), clamp(Math.max(a.y, b.y))];
+	return { sheet, x: x0, y: y0, w: x1 - x0, h: y1 - y0 };
 }
 
 /** `markers` with `added` put in, replacing those with the same id. */

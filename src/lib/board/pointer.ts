@@ -10,6 +10,8 @@ import type { Point } from './view';
 export class PointerInput {
 	#pointers = new Map<number, Point>();
 	#drag: { marker: Marker; grab: Point } | null = null;
+	/** Where an area being dragged out in place mode started. */
+	#area: Point | null = null;
 	#travel = 0;
 
 	constructor(
@@ -36,9 +38,13 @@ export class PointerInput {
 					marker,
 					grab: { x: page.x - marker.location.x, y: page.y - marker.location.y }
 				};
+			} else if (!marker && this.board.placing && this.board.placesAreas) {
+				this.#area = at;
 			}
 		} else {
 			this.#drag = null;
+			this.#area = null;
+			this.board.sketch = null;
 		}
 	};
 
@@ -57,6 +63,8 @@ export class PointerInput {
 			this.board.zoomBy(step.factor, step.anchor);
 		} else if (this.#drag) {
 			this.board.dragMarker(this.#drag.marker, at, this.#drag.grab);
+		} else if (this.#area) {
+			this.board.sketchArea(this.#area, at);
 		} else {
 			this.board.panBy(at.x - before.x, at.y - before.y);
 		}
@@ -68,12 +76,15 @@ export class PointerInput {
 		if (!this.#pointers.delete(event.pointerId)) return;
 		const at = this.#local(event);
 		if (this.#drag && this.#travel > 2) this.board.dropMarker(this.#drag.marker.id);
+		else if (this.#area && this.#travel > 4) this.board.placeArea(this.#area, at);
 		else if (this.#travel <= 2 && this.#pointers.size === 0) {
 			const marker = this.board.markerAt(at);
 			if (!marker && this.board.placing) this.board.placeAt(at);
 			else this.board.select(marker?.id ?? null);
 		}
 		this.#drag = null;
+		this.#area = null;
+		this.board.sketch = null;
 	};
 
 	leave = () => {

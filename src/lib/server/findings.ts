@@ -6,12 +6,15 @@
  * frozen and the version is current — and answer an outcome either way.
  */
 import {
-	findingMoves,
+	editRefused,
 	findingName,
 	isOpen,
 	moveNames,
+	moveRefused,
+	movesAllowed,
 	needsMessage,
 	type FindingJson,
+	type FindingPowers,
 	type FindingState
 } from '$lib/findings';
 import type { FindingInput, FindingPatch, FindingQuery } from '$lib/schemas/findings';
@@ -19,7 +22,7 @@ import { writeRefusal } from './api';
 import { can } from './capabilities';
 import type { Db } from './db/connect';
 import type { Actor } from './db/queries/activity';
-import { getFeature } from './db/queries/features';
+import { getFeature, listFeatures } from './db/queries/features';
 import {
 	createFinding,
 	InvalidMove,
@@ -32,7 +35,8 @@ import {
 	type FindingValues
 } from './db/queries/findings';
 import { getFit } from './db/queries/fits';
-import { getMembership } from './db/queries/teams';
+import { getMembership, listMembers } from './db/queries/teams';
+import { memberName, otherMemberName, type FitAnswer } from '$lib/fits';
 import { roleLabels } from '$lib/roles';
 import type { DrawingRow, FindingRow, RevisionRow, Role, TeamRow } from './db/schema';
 import { checkLocation } from './features';
@@ -161,27 +165,26 @@ export async function raiseFinding(
 	}
 }
 
+/** What the asker's role gives them on findings (`$lib/findings` judges with it). */
+export function powersOf(asker: Asker): FindingPowers {
+	return {
+		userId: asker.user.id,
+		role: asker.role,
+		raise: can(asker.role, 'raiseFindings'),
+		answer: can(asker.role, 'answerFindings'),
+		judge: can(asker.role, 'judgeFindings')
+	};
+}
+
 /** What the asker's role allows on this finding: a refusal, or null when the move is theirs. */
 function moveRefusal(asker: Asker, finding: FindingRow, to: FindingState): FindingRefusal | null {
-	const move = moveNames[to];
-	if (to === 'answered') {
-		if (!can(asker.role, 'answerFindings')) {
-			return forbidden(`Your role (${roleLabels[asker.role]}) does not answer findings`);
-		}
-		if (finding.assigneeId && finding.assigneeId !== asker.user.id) {
-			return forbidden(`${findingName(finding.number)} is assigned to someone else to answer`);
-		}
-		return null;
-	}
-	if (!can(asker.role, 'judgeFindings')) {
-		return forbidden(`Your role (${roleLabels[asker.role]}) does not ${move} findings`);
-	}
-	return null;
+	const refused = moveRefused(powersOf(asker), finding, to);
+	return refused ? forbidden(refused) : null;
 }
 
 /** The states the asker may move this finding to now: their role allows it and the machine has it. */
 export function movesFor(asker: Asker, finding: FindingRow): FindingState[] {
-	return findingMoves[finding.state].filter((to) => !moveRefusal(asker, finding, to));
+	return movesAllowed(powersOf(asker), finding);
 }
 
 type Write = (changes: Partial<FindingValues>, action?: FindingEdit) => Promise<FindingRow>;
@@ -253,12 +256,8 @@ async function edit(
 	changes: Partial<FindingValues>,
 	write: Write
 ) {
-	if (!can(asker.role, 'raiseFindings')) {
-		return forbidden(`Your role (${roleLabels[asker.role]}) does not edit findings`);
-	}
-	if (!can(asker.role, 'judgeFindings') && finding.raisedBy !== asker.user.id) {
-		return forbidden(`Only whoever raised ${findingName(finding.number)} or a checker edits it`);
-	}
+	const refused = editRefused(powersOf(asker), finding);
+	if (refused) return forbidden(refused);
 	if (finding.kind === 'rule' && changes.text !== undefined) {
 		return invalid('text', "A rule finding's text is the rulebook's");
 	}
@@ -292,4 +291,32 @@ export async function changeFinding(
 	} catch (err) {
 		return refusalFor(db, err);
 	}
+}
+
+/**
+ * What a new finding's fields offer on this revision (the findings page and the board): the
+ * team's members (those who may answer are offered as assignee), the revision's features and
+ * the fits listed on it, each named as people read them.
+ */
+export async function findingChoices(
+	db: Db,
+	place: FindingPlace,
+	fits: Pick<FitAnswer, 'id' | 'members' | 'fastener'>[]
+) {
+	const [members, features] = await Promise.all([
+		listMembers(db, place.team.id),
+		listFeatures(db, place.revision.id)
+	]);
+	return {
+		members: members.map((m) => ({
+			userId: m.userId,
+			name: m.name ?? m.email,
+			mayAnswer: can(m.role, 'answerFindings')
+		})),
+		features: features.map((f) => ({ id: f.id, balloon: f.balloon, label: f.label })),
+		fits: fits.map((f) => ({
+			id: f.id,
+			name: `${memberName(f.members.hole)} with ${otherMemberName(f)}`
+		}))
+	};
 }

@@ -2,10 +2,17 @@ import { fail } from '@sveltejs/kit';
 import { generalToleranceFromForm, revisionSettings } from '$lib/schemas/drawings';
 import { can } from '$lib/server/capabilities';
 import { db } from '$lib/server/db';
-import { publicDrawing, publicRevision, updateRevision } from '$lib/server/db/queries/drawings';
+import {
+	isVisibleToSuppliers,
+	publicDrawing,
+	publicRevision,
+	updateRevision
+} from '$lib/server/db/queries/drawings';
 import { getUserById } from '$lib/server/db/queries/users';
 import { isFrozen } from '$lib/server/db/schema';
-import { listFindings } from '$lib/server/db/queries/findings';
+import { findingChoices, findingsOf, powersOf } from '$lib/server/findings';
+import { fitsOf } from '$lib/server/fits';
+import type { FitAnswer } from '$lib/fits';
 import { countFindings } from '$lib/findings';
 import { requireRevision } from '$lib/server/drawings';
 import { featuresOf } from '$lib/server/features';
@@ -17,7 +24,8 @@ export const load: PageServerLoad = async ({ params }) => {
 	const { drawing, revision, membership } = place;
 	const uploader = revision.uploadedBy ? await getUserById(db, revision.uploadedBy) : null;
 	const frozen = isFrozen(revision.state);
-	const findingCounts = countFindings(await listFindings(db, revision.id));
+	const asker = { user: place.user, role: membership.role };
+	const [findings, fits] = await Promise.all([findingsOf(db, place), fitsOf(db, place)]);
 	return {
 		drawing: publicDrawing(drawing),
 		revision: {
@@ -29,9 +37,17 @@ export const load: PageServerLoad = async ({ params }) => {
 		may: {
 			// The board is read-only without it, and on a frozen revision for everyone.
 			editFeatures: can(membership.role, 'editFeatures') && !frozen,
-			editSettings: can(membership.role, 'author') && !frozen
+			editSettings: can(membership.role, 'author') && !frozen,
+			comment: can(membership.role, 'raiseFindings') || isVisibleToSuppliers(revision.state)
 		},
-		findingCounts
+		findingCounts: countFindings(findings),
+		findings,
+		// What this person may do to findings; the API decides again on every write.
+		findingPowers: powersOf(asker),
+		// The service's answer, which the integration tests check against the fitResponse schema.
+		fits: fits as FitAnswer[],
+		/** What a new finding's fields offer. */
+		choices: await findingChoices(db, place, fits as FitAnswer[])
 	};
 };
 

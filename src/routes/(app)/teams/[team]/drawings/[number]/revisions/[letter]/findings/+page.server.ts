@@ -3,12 +3,12 @@ import { countFindings } from '$lib/findings';
 import { findingQuery } from '$lib/schemas/findings';
 import { can } from '$lib/server/capabilities';
 import { db } from '$lib/server/db';
-import { listFeatures } from '$lib/server/db/queries/features';
-import { listMembers } from '$lib/server/db/queries/teams';
 import { isFrozen } from '$lib/server/db/schema';
 import { requireRevision } from '$lib/server/drawings';
 import { readRaiseForm, refusedForm } from '$lib/server/finding-forms';
-import { findingsOf, raiseFinding } from '$lib/server/findings';
+import { findingChoices, findingsOf, raiseFinding } from '$lib/server/findings';
+import { fitsOf } from '$lib/server/fits';
+import type { FitAnswer } from '$lib/fits';
 import type { Actions, PageServerLoad } from './$types';
 
 /** The filters as the API takes them; ones that do not read are named and left out. */
@@ -32,12 +32,12 @@ function filtersOf(url: URL) {
 export const load: PageServerLoad = async ({ params, url }) => {
 	const place = await requireRevision(params.team, params.number, params.letter, 'view');
 	const filters = filtersOf(url);
-	const [shown, all, members, features] = await Promise.all([
+	const [shown, all, fits] = await Promise.all([
 		findingsOf(db, place, filters.query),
 		findingsOf(db, place),
-		listMembers(db, place.team.id),
-		listFeatures(db, place.revision.id)
+		fitsOf(db, place)
 	]);
+	const choices = await findingChoices(db, place, fits as FitAnswer[]);
 	return {
 		drawing: { number: place.drawing.number, title: place.drawing.title },
 		revision: { letter: place.revision.letter, state: place.revision.state },
@@ -46,12 +46,7 @@ export const load: PageServerLoad = async ({ params, url }) => {
 		rules: [...new Set(all.map((f) => f.rule).filter((r): r is string => !!r))].sort(),
 		filters: filters.raw,
 		filterProblem: filters.problem,
-		members: members.map((m) => ({
-			userId: m.userId,
-			name: m.name ?? m.email,
-			mayAnswer: can(m.role, 'answerFindings')
-		})),
-		features: features.map((f) => ({ id: f.id, balloon: f.balloon, label: f.label })),
+		...choices,
 		mayRaise: can(place.membership.role, 'raiseFindings') && !isFrozen(place.revision.state)
 	};
 };
