@@ -3,6 +3,7 @@
  * clients. No server or database import: safe in the browser.
  */
 import type { z } from 'zod';
+import { call, revisionUrl } from '$lib/api-client';
 import type { featureMatch } from '$lib/schemas/features';
 import type { fitCreate, fitPatch, fitResponse } from '$lib/schemas/fits';
 import type { FitIntent } from '$lib/tolerance/fit';
@@ -38,4 +39,13 @@ export function otherMemberName(fit: Pick<FitAnswer, 'members' | 'fastener'>) {
 	if (fit.members.shaft) return memberName(fit.members.shaft);
 	const f = fit.fastener;
 	return f ? `${f.callout}${f.label ? ` ${f.label}` : ''} (bought)` : '—';
+}
+
+/** Deletes a fit on its hole's revision, where it is owned (its members stay). */
+export function deleteFit(team: string, fit: Pick<FitAnswer, 'id' | 'version' | 'members'>) {
+	const hole = fit.members.hole;
+	return call<void>(
+		`${revisionUrl(team, hole.drawing, hole.letter)}/fits/${fit.id}?version=${fit.version}`,
+		{ method: 'DELETE' }
+	);
 }

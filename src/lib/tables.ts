@@ -24,6 +24,8 @@ export interface FeatureTableRow {
 	problem: string | null;
 	/** null: not yet placed on a sheet. */
 	location: MarkerLocation | null;
+	/** Open findings (raised or answered) about the feature; the page's load counts them. */
+	openFindings: number;
 }
 
 export function featureTableRow(f: FeatureJson): FeatureTableRow {
@@ -41,7 +43,8 @@ export function featureTableRow(f: FeatureJson): FeatureTableRow {
 		lmc: f.lmc ?? null,
 		envelope: f.envelope ? f.envelope.applies : null,
 		problem: f.problem?.message ?? null,
-		location: f.location
+		location: f.location,
+		openFindings: 0
 	};
 }
 

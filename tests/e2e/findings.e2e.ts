@@ -1,7 +1,9 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
+import type { Marker } from '../../src/lib/board/markers';
 import { Client } from '../app/client';
 import { draftRevision } from '../app/revisions';
+import { settled } from './board-drawing';
 import { launchBrowser, screenshot, signIn, watchOutsideRequests } from './browser';
 
 const baseUrl = inject('baseUrl');
@@ -112,5 +114,142 @@ describe('a finding through its table and its thread', () => {
 		await anodise.getByRole('link', { name: 'F-1' }).click();
 		await checker.page.locator('[data-thread] .mention').first().waitFor();
 		expect(checker.outside).toEqual([]);
+	});
+});
+
+type BoardHandle = HTMLElement & {
+	board: {
+		markers: Marker[];
+		selected: string | null;
+		toScreen: (p: { x: number; y: number }) => { x: number; y: number };
+	};
+};
+
+/** The finding markers on the board, as the board holds them. */
+function findingMarkers(page: Page) {
+	return page.evaluate(() =>
+		(document.querySelector('[data-board]') as BoardHandle).board.markers.filter((m) =>
+			m.id.startsWith('finding-')
+		)
+	);
+}
+
+/** Presses a state change in the board's finding panel and waits for the new state. */
+async function moveOnBoard(page: Page, button: string, message: string, state: string) {
+	const panel = page.locator('[data-finding-panel]');
+	if (message) await panel.getByLabel('Message').fill(message);
+	await panel.getByRole('button', { name: button, exact: true }).click();
+	await panel.locator(`[data-finding-state="${state}"]`).waitFor();
+}
+
+describe('a finding raised on the board', () => {
+	it('the checker marks an area, the drafter answers in the thread, the checker resolves and verifies', async () => {
+		const drafterApi = new Client();
+		await drafterApi.signIn('drafter@example.test');
+		const { number, path } = await draftRevision(drafterApi, 'kestrel');
+
+		const checker = await personAt('checker@example.test');
+		await checker.page.goto(`${baseUrl}${path}`);
+		await settled(checker.page);
+		const sheet = checker.page.locator('[data-board-viewport]');
+		const box = (await sheet.boundingBox())!;
+
+		// Escape leaves raise mode without raising anything.
+		await checker.page.getByRole('button', { name: 'Raise finding' }).click();
+		await checker.page.locator('[data-board-placing]').waitFor();
+		await checker.page.keyboard.press('Escape');
+		await checker.page.locator('[data-board-placing]').waitFor({ state: 'detached' });
+
+		// Raise mode again: drag around an area of the sheet.
+		await checker.page.getByRole('button', { name: 'Raise finding' }).click();
+		await checker.page.locator('[data-board-placing]').waitFor();
+		const from = { x: box.x + box.width * 0.3, y: box.y + box.height * 0.3 };
+		const to = { x: box.x + box.width * 0.5, y: box.y + box.height * 0.45 };
+		await checker.page.mouse.move(from.x, from.y);
+		await checker.page.mouse.down();
+		await checker.page.mouse.move((from.x + to.x) / 2, (from.y + to.y) / 2, { steps: 4 });
+		await checker.page.locator('[data-board-sketch]').waitFor();
+		await checker.page.mouse.move(to.x, to.y, { steps: 4 });
+		await checker.page.mouse.up();
+		const form = checker.page.locator('[data-raise-finding]');
+		await form.getByRole('heading', { name: 'New finding' }).waitFor();
+		await form.getByText('the area marked').waitFor();
+		// The text is required: the API's message shows under the field and nothing is raised.
+		await form.getByRole('button', { name: 'Raise finding' }).click();
+		await form.getByText('Say what is wrong').waitFor();
+		await form.getByLabel('What is wrong').fill('The title block has no surface finish note.');
+		await form.getByLabel('Severity').selectOption('major');
+		await form.getByLabel('Assignee').selectOption({ label: 'Tomas Reyes' });
+		// Supplier quality cannot answer, so is not offered.
+		expect(await form.getByLabel('Assignee').locator('option').allTextContents()).not.toContain(
+			'Ken Halloran'
+		);
+		await form.getByRole('button', { name: 'Raise finding' }).click();
+		const panel = checker.page.locator('[data-finding-panel]');
+		await panel.getByRole('heading', { name: 'F-1' }).waitFor();
+		await panel.locator('[data-finding-state="raised"]').waitFor();
+		const [marker] = await findingMarkers(checker.page);
+		// A tag (features are round balloons) around the area dragged out, at its top-left.
+		expect(marker).toMatchObject({ label: 'F-1', shape: 'tag', outline: 'cloud', tone: 'major' });
+		expect(marker.location.w).toBeGreaterThan(0.05);
+		expect(marker.location.h).toBeGreaterThan(0.05);
+		expect(marker.finish).toBe('solid');
+		await screenshot(checker.page, 'board-finding-raised');
+
+		// The drafter opens it from the findings table, which flies the board to its marker.
+		const drafter = await personAt('drafter@example.test');
+		await drafter.page.goto(`${baseUrl}${path}/findings`);
+		await drafter.page
+			.locator('[data-finding="1"]')
+			.getByRole('link', { name: 'Show on sheet 1' })
+			.click();
+		await drafter.page.waitForURL(/show=finding-/);
+		await settled(drafter.page);
+		const shown = new URL(drafter.page.url()).searchParams.get('show');
+		expect(
+			await drafter.page.evaluate(
+				() => (document.querySelector('[data-board]') as BoardHandle).board.selected
+			)
+		).toBe(shown);
+		const drafterPanel = drafter.page.locator('[data-finding-panel]');
+		await drafterPanel.getByText('The title block has no surface finish note.').waitFor();
+		// Resolving is the checker's: the drafter is offered only the answer.
+		expect(await drafterPanel.getByRole('button', { name: 'Resolve' }).count()).toBe(0);
+		await drafterPanel.getByLabel('Comment').fill('Added **Ra 1.6** to the general note.');
+		await drafterPanel.getByRole('button', { name: 'Post comment' }).click();
+		await drafterPanel.locator('[data-thread]').getByText('Ra 1.6').waitFor();
+		await moveOnBoard(drafter.page, 'Answer', 'Note added on sheet 1.', 'answered');
+		expect((await findingMarkers(drafter.page))[0].finish).toBe('half');
+		await screenshot(drafter.page, 'board-finding-answered');
+
+		// The checker picks the marker on the sheet, resolves and verifies.
+		await checker.page.reload();
+		await settled(checker.page);
+		await checker.page.locator('[data-finding-panel]').waitFor({ state: 'detached' });
+		const at = await checker.page.evaluate(() => {
+			const board = (document.querySelector('[data-board]') as BoardHandle).board;
+			const m = board.markers.find((m) => m.id.startsWith('finding-'))!;
+			return board.toScreen(m.location);
+		});
+		const now = (await sheet.boundingBox())!;
+		await checker.page.mouse.click(now.x + at.x, now.y + at.y);
+		const checkerPanel = checker.page.locator('[data-finding-panel]');
+		await checkerPanel.locator('[data-finding-state="answered"]').waitFor();
+		await checkerPanel.locator('[data-thread]').getByText('Ra 1.6').waitFor();
+		await moveOnBoard(checker.page, 'Resolve', 'The note is on the sheet.', 'resolved');
+		await moveOnBoard(checker.page, 'Verify', '', 'verified');
+		const history = checkerPanel.locator('[data-history]');
+		for (const line of ['Answered', 'Resolved', 'Verified']) {
+			await history.getByText(line, { exact: true }).waitFor();
+		}
+		await history.getByText('Note added on sheet 1.').waitFor();
+		const [done] = await findingMarkers(checker.page);
+		expect(done).toMatchObject({ label: 'F-1✓', finish: 'hollow' });
+		await screenshot(checker.page, 'board-finding-verified');
+
+		const api = await drafterApi.api('GET', `/teams/kestrel/drawings/${number}/revisions/A/findings`);
+		expect(((await api.json()) as { state: string }[])[0].state).toBe('verified');
+		expect(checker.outside).toEqual([]);
+		expect(drafter.outside).toEqual([]);
 	});
 });

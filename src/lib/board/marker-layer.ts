@@ -188,7 +188,7 @@ function drawSprite(
 	finish: MarkerFinish
 ) {
 	const ratio = spriteRatio();
-	const size = (markerRadius + ringRoom) * 2;
+	const size = shape === 'tag' ? tagSize : (markerRadius + ringRoom) * 2;
 	const canvas = document.createElement('canvas');
 	canvas.width = canvas.height = size * ratio;
 	const c = canvas.getContext('2d')!;
@@ -224,9 +224,9 @@ function drawSprite(
 	if (label) {
 		c.textAlign = 'center';
 		c.textBaseline = 'middle';
-		const fontSize = label.length > 4 ? 8 : label.length > 3 ? 9 : 10;
+		const fontSize = shape === 'tag' ? 10 : label.length > 3 ? 8 : 10;
 		c.font = `600 ${fontSize}px 'Noto Sans', sans-serif`;
-		const width = shape === 'tag' ? size - 4 : markerRadius * 2 - 3;
+		const width = shape === 'tag' ? size - 2 * ringRoom - 10 : markerRadius * 2 - 3;
 		if (finish === 'half') {
 			// White on the filled half, the colour on the white half, with a white halo to read.
 			c.lineWidth = 2.5;
@@ -245,10 +245,13 @@ function discPath(c: CanvasRenderingContext2D, middle: number, grow: number) {
 	c.arc(middle, middle, markerRadius + grow, 0, Math.PI * 2);
 }
 
+/** A tag's sprite: room for `F-123✓` and the rings. */
+const tagSize = 52;
+
 /** A tag: square-cornered, wider than high, with a point on its left (where it is pinned). */
 function tagPath(c: CanvasRenderingContext2D, middle: number, grow: number) {
-	const half = { w: middle - 5 + grow, h: markerRadius - 3 + grow };
-	const point = 5;
+	const half = { w: middle - ringRoom + grow, h: markerRadius - 2 + grow };
+	const point = 6;
 	c.beginPath();
 	c.moveTo(middle - half.w, middle);
 	c.lineTo(middle - half.w + point, middle - half.h);

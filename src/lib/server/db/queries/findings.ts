@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm';
+import { and, asc, eq, inArray, isNotNull, isNull, sql, type SQL } from 'drizzle-orm';
 import { canMove, findingName, openStates, type FindingState } from '$lib/findings';
 import type { FindingQuery } from '$lib/schemas/findings';
 import type { Db } from '../connect';
@@ -58,6 +58,22 @@ export async function listFindings(db: Db, revisionId: string, query: FindingQue
 		.from(findings)
 		.where(and(...where))
 		.orderBy(asc(findings.number));
+}
+
+/** Open findings (raised or answered) per feature of the revision: one grouped query. */
+export async function openFindingsByFeature(db: Db, revisionId: string) {
+	const rows = await db
+		.select({ featureId: findings.featureId, count: sql<number>`count(*)::int` })
+		.from(findings)
+		.where(
+			and(
+				eq(findings.revisionId, revisionId),
+				inArray(findings.state, [...openStates]),
+				isNotNull(findings.featureId)
+			)
+		)
+		.groupBy(findings.featureId);
+	return new Map(rows.map((r) => [r.featureId!, Number(r.count)]));
 }
 
 /** A finding of the revision by its id or its number. */

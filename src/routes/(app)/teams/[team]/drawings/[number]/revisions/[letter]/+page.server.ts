@@ -13,7 +13,6 @@ import { isFrozen } from '$lib/server/db/schema';
 import { findingChoices, findingsOf, powersOf } from '$lib/server/findings';
 import { fitsOf } from '$lib/server/fits';
 import type { FitAnswer } from '$lib/fits';
-import { countFindings } from '$lib/findings';
 import { requireRevision } from '$lib/server/drawings';
 import { featuresOf } from '$lib/server/features';
 import { fieldErrorsOf, refuseForm } from '$lib/server/forms';
@@ -40,7 +39,6 @@ export const load: PageServerLoad = async ({ params }) => {
 			editSettings: can(membership.role, 'author') && !frozen,
 			comment: can(membership.role, 'raiseFindings') || isVisibleToSuppliers(revision.state)
 		},
-		findingCounts: countFindings(findings),
 		findings,
 		// What this person may do to findings; the API decides again on every write.
 		findingPowers: powersOf(asker),

@@ -1,6 +1,7 @@
 import { can } from '$lib/server/capabilities';
 import { db } from '$lib/server/db';
 import { isVisibleToSuppliers } from '$lib/server/db/queries/drawings';
+import { openFindingsByFeature } from '$lib/server/db/queries/findings';
 import { isFrozen } from '$lib/server/db/schema';
 import { requireRevision } from '$lib/server/drawings';
 import { featuresOf } from '$lib/server/features';
@@ -14,11 +15,15 @@ export const load: PageServerLoad = async ({ params }) => {
 	const place = await requireRevision(params.team, params.number, params.letter, 'view');
 	const { drawing, revision, membership } = place;
 	const role = membership.role;
-	const [features, fits] = await Promise.all([featuresOf(db, place), fitsOf(db, place)]);
+	const [features, fits, open] = await Promise.all([
+		featuresOf(db, place),
+		fitsOf(db, place),
+		openFindingsByFeature(db, revision.id)
+	]);
 	return {
 		drawing: { number: drawing.number, title: drawing.title },
 		revision: { letter: revision.letter, state: revision.state },
-		features: features.map(featureTableRow),
+		features: features.map((f) => ({ ...featureTableRow(f), openFindings: open.get(f.id) ?? 0 })),
 		// The service's answer, which the integration tests check against the fitResponse schema.
 		fits: fits as FitAnswer[],
 		may: {
