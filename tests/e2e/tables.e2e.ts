@@ -118,3 +118,55 @@ describe("a revision's features and fits tables", () => {
 		await shot('board-from-table');
 	});
 });
+
+describe('fits on the board', () => {
+	it("pairs Ø12 H7 on the bushing drawing with Ø12 g6 on the shaft drawing from the bore's panel", async () => {
+		await page.goto(`${baseUrl}/teams/kestrel/drawings/KF-1003/revisions/A`);
+		await settled(page);
+		// The bore from the side panel's list of placed features: the board flies to it.
+		await page
+			.getByRole('list', { name: 'Placed features' })
+			.getByRole('button', { name: /Bore.*Ø12 H7/ })
+			.click();
+		const panel = page.locator('[data-selection-panel]');
+		await panel.locator('[data-feature-panel]').waitFor();
+		const fits = panel.locator('[data-revision-fits]');
+		await fits.getByRole('button', { name: 'Pair with…' }).click();
+		const dialog = page.getByRole('dialog', { name: /Pair KF-1003 A #\d+ Bore with/ });
+		await dialog.waitFor();
+		const search = dialog.getByRole('combobox', { name: 'Shaft or pin that goes in' });
+		await search.fill('KF-1002 g6');
+		await dialog.getByRole('option', { name: /KF-1002 A #\d+ Journal/ }).waitFor();
+		await search.press('Enter');
+		await dialog.getByLabel('The fit is meant as').selectOption('running');
+		await dialog.getByRole('button', { name: 'Add fit' }).click();
+		const view = page.getByRole('dialog').getByTestId('fit-view');
+		await view.waitFor();
+		// ISO 286-2:2010, tables 2 and 17: H7 over 10 to 18 mm is 0/+0.018, g6 −0.006/−0.017, so
+		// 0.006 at MMC and 0.035 at LMC.
+		await expect(view.getByTestId('min-clearance').textContent()).resolves.toBe('0.006');
+		await expect(view.getByTestId('max-clearance').textContent()).resolves.toBe('0.035');
+		const diagram = view.getByTestId('fit-diagram').locator('svg');
+		expect((await diagram.boundingBox())!.width).toBeGreaterThan(200);
+		await shot('board-fit-dialog');
+		await page.getByRole('dialog').getByRole('button', { name: 'Done' }).click();
+		// The bore's panel lists the new fit; opened, it shows the same values and the diagram.
+		const listed = fits.locator('[data-fit]').filter({ hasText: /Journal.*0\.006 \/ 0\.035/ });
+		await listed.first().getByRole('button').first().click();
+		await listed.first().getByTestId('fit-diagram').waitFor();
+		await shot('board-fit-listed');
+
+		// On the shaft drawing's board the journal lists it read-only, linked to the bushing's board.
+		await page.goto(`${baseUrl}/teams/kestrel/drawings/KF-1002/revisions/A`);
+		await settled(page);
+		const overview = page.locator('[data-revision-fits]');
+		const shaftSide = overview.locator('[data-fit]').filter({ hasText: /Bore.*read-only/ });
+		await shaftSide.first().getByRole('button').first().click();
+		const readOnly = shaftSide.first().getByTestId('fit-read-only');
+		await readOnly.waitFor();
+		expect(await shaftSide.first().getByRole('button', { name: 'Edit fit' }).count()).toBe(0);
+		const href = await readOnly.getByRole('link').getAttribute('href');
+		expect(href).toMatch(/\/drawings\/KF-1003\/revisions\/A\?show=feature-[0-9a-f-]{36}$/);
+		await shot('board-fit-read-only');
+	});
+});

@@ -14,7 +14,7 @@ import {
 import { createDrawing, insertRevision } from '../../src/lib/server/db/queries/drawings';
 import { addMember, createTeam } from '../../src/lib/server/db/queries/teams';
 import { createUser } from '../../src/lib/server/db/queries/users';
-import { getFinding } from '../../src/lib/server/db/queries/findings';
+import { getFinding, openFindingsByFeature } from '../../src/lib/server/db/queries/findings';
 import { getComment } from '../../src/lib/server/db/queries/comments';
 import { addFeature } from '../../src/lib/server/features';
 import {
@@ -501,6 +501,42 @@ describe('the findings table filters', () => {
 		expect(await numbers({ kind: 'rule' })).toEqual([]);
 		expect(findingQuery.safeParse({ state: 'closed' }).success).toBe(false);
 		expect(findingQuery.safeParse({ rule: 'nonsense' }).success).toBe(false);
+	});
+
+	it("count each feature's open findings in one grouped query (the features table)", async () => {
+		const place = await newRevision();
+		const add = async (callout: string) => {
+			const added = await addFeature(
+				database.db,
+				people.drafter,
+				{ ...place, team },
+				featureInput.parse({ kind: 'hole', callout })
+			);
+			if (!added.ok) throw new Error(added.message);
+			return added.feature.id;
+		};
+		const bore = await add('Ø12 H7');
+		const dowel = await add('Ø6 H7');
+		const quiet = await add('Ø8 H7');
+		await raise(place, { featureId: bore });
+		const answered = await raise(place, { featureId: bore, assigneeId: people.drafter.id });
+		await changeFinding(database.db, asker('drafter'), place, answered, {
+			state: 'answered',
+			version: 1
+		});
+		const withdrawn = await raise(place, { featureId: dowel });
+		await changeFinding(database.db, asker('checker'), place, withdrawn, {
+			state: 'withdrawn',
+			message: 'Not a problem',
+			version: 1
+		});
+		await raise(place);
+		const open = await openFindingsByFeature(database.db, place.revision.id);
+		// Raised and answered count as open; withdrawn does not; findings on no feature are left out.
+		expect(Object.fromEntries(open)).toEqual({ [bore]: 2 });
+		expect(open.get(quiet)).toBeUndefined();
+		// Another revision's findings are not this one's.
+		expect((await openFindingsByFeature(database.db, (await newRevision()).revision.id)).size).toBe(0);
 	});
 });
 
