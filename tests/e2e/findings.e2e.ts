@@ -211,6 +211,8 @@ describe('a finding raised on the board', () => {
 				() => (document.querySelector('[data-board]') as BoardHandle).board.selected
 			)
 		).toBe(shown);
+		// Only whoever raised it or a checker may move it: not the drafter.
+		expect((await findingMarkers(drafter.page))[0].movable).toBe(false);
 		const drafterPanel = drafter.page.locator('[data-finding-panel]');
 		await drafterPanel.getByText('The title block has no surface finish note.').waitFor();
 		// Resolving is the checker's: the drafter is offered only the answer.
@@ -226,14 +228,37 @@ describe('a finding raised on the board', () => {
 		await checker.page.reload();
 		await settled(checker.page);
 		await checker.page.locator('[data-finding-panel]').waitFor({ state: 'detached' });
-		const at = await checker.page.evaluate(() => {
-			const board = (document.querySelector('[data-board]') as BoardHandle).board;
-			const m = board.markers.find((m) => m.id.startsWith('finding-'))!;
-			return board.toScreen(m.location);
-		});
-		const now = (await sheet.boundingBox())!;
-		await checker.page.mouse.click(now.x + at.x, now.y + at.y);
+		const tagAt = async () => {
+			const at = await checker.page.evaluate(() => {
+				const board = (document.querySelector('[data-board]') as BoardHandle).board;
+				const m = board.markers.find((m) => m.id.startsWith('finding-'))!;
+				return board.toScreen(m.location);
+			});
+			const now = (await sheet.boundingBox())!;
+			return { x: now.x + at.x, y: now.y + at.y };
+		};
+		const first = await tagAt();
+		await checker.page.mouse.click(first.x, first.y);
 		const checkerPanel = checker.page.locator('[data-finding-panel]');
+		await checkerPanel.waitFor();
+		// The side panel widened: the whole sheet is fitted to the narrower view again.
+		await settled(checker.page);
+		const tag = await tagAt();
+		// The checker raised it, so may drag it elsewhere: the API keeps the new place.
+		expect((await findingMarkers(checker.page))[0].movable).toBe(true);
+		await checker.page.mouse.move(tag.x, tag.y);
+		await checker.page.mouse.down();
+		await checker.page.mouse.move(tag.x + 60, tag.y + 40, { steps: 6 });
+		await checker.page.mouse.up();
+		const findingsUrl = `/teams/kestrel/drawings/${number}/revisions/A/findings`;
+		await expect
+			.poll(async () => {
+				const list = (await (await drafterApi.api('GET', findingsUrl)).json()) as {
+					location: { x: number };
+				}[];
+				return list[0].location.x;
+			})
+			.toBeGreaterThan(marker.location.x + 0.01);
 		await checkerPanel.locator('[data-finding-state="answered"]').waitFor();
 		await checkerPanel.locator('[data-thread]').getByText('Ra 1.6').waitFor();
 		await moveOnBoard(checker.page, 'Resolve', 'The note is on the sheet.', 'resolved');
@@ -247,7 +272,7 @@ describe('a finding raised on the board', () => {
 		expect(done).toMatchObject({ label: 'F-1✓', finish: 'hollow' });
 		await screenshot(checker.page, 'board-finding-verified');
 
-		const api = await drafterApi.api('GET', `/teams/kestrel/drawings/${number}/revisions/A/findings`);
+		const api = await drafterApi.api('GET', findingsUrl);
 		expect(((await api.json()) as { state: string }[])[0].state).toBe('verified');
 		expect(checker.outside).toEqual([]);
 		expect(drafter.outside).toEqual([]);

@@ -72,6 +72,21 @@ describe("a revision's features and fits tables", () => {
 		expect(await page.getByRole('button', { name: 'Edit fit' }).count()).toBe(0);
 	});
 
+	it("counts each feature's open findings", async () => {
+		await page.goto(`${baseUrl}/teams/kestrel/drawings/KF-1002/revisions/A/tables`);
+		const table = page.getByRole('table', { name: 'Features' });
+		const column = await table
+			.getByRole('columnheader')
+			.allTextContents()
+			.then((h) => h.findIndex((t) => t.includes('Open findings')));
+		expect(column).toBeGreaterThan(0);
+		const cell = (label: RegExp) =>
+			table.getByRole('row', { name: label }).locator('td').nth(column).textContent();
+		// The demo's KF-1002 F-1 (answered) is about the keyway; the journal has none open.
+		await expect(cell(/Keyway width/)).resolves.toBe('1');
+		await expect(cell(/Journal/)).resolves.toBe('0');
+	});
+
 	it('filters the features table and flies the board to the row picked by keyboard', async () => {
 		await page.goto(`${baseUrl}/teams/kestrel/drawings/KF-1001/revisions/A/tables`);
 		const table = page.getByRole('table', { name: 'Features' });
