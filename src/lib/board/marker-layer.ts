@@ -208,11 +208,11 @@ function drawSprite(
 	c.fillStyle = solid ? colour : '#ffffff';
 	c.fill();
 	if (finish === 'half') {
-		// Answered: the left half filled, the right half white.
+		// Answered: a band filled at its left (its point, on a tag), the rest white.
 		c.save();
 		c.clip();
 		c.fillStyle = colour;
-		c.fillRect(0, 0, middle, size);
+		c.fillRect(0, 0, middle - (shape === 'tag' ? 10 : 4), size);
 		c.restore();
 	}
 	path(c, middle, 0);
@@ -227,14 +227,10 @@ function drawSprite(
 		const fontSize = shape === 'tag' ? 10 : label.length > 3 ? 8 : 10;
 		c.font = `600 ${fontSize}px 'Noto Sans', sans-serif`;
 		const width = shape === 'tag' ? size - 2 * ringRoom - 10 : markerRadius * 2 - 3;
-		if (finish === 'half') {
-			// White on the filled half, the colour on the white half, with a white halo to read.
-			c.lineWidth = 2.5;
-			c.strokeStyle = '#ffffff';
-			c.strokeText(label, middle, middle + 0.5, width);
-		}
+		// Beside an answered marker's band, its label moves right onto the white.
+		const x = finish === 'half' ? middle + (shape === 'tag' ? 4 : 2) : middle;
 		c.fillStyle = solid ? '#ffffff' : colour;
-		c.fillText(label, middle, middle + 0.5, width);
+		c.fillText(label, x, middle + 0.5, width - (x - middle) * 2);
 	}
 	return canvas;
 }
