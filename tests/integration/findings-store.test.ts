@@ -536,7 +536,9 @@ describe('the findings table filters', () => {
 		expect(Object.fromEntries(open)).toEqual({ [bore]: 2 });
 		expect(open.get(quiet)).toBeUndefined();
 		// Another revision's findings are not this one's.
-		expect((await openFindingsByFeature(database.db, (await newRevision()).revision.id)).size).toBe(0);
+		expect((await openFindingsByFeature(database.db, (await newRevision()).revision.id)).size).toBe(
+			0
+		);
 	});
 });
 

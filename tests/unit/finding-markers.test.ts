@@ -86,7 +86,9 @@ describe('what a person may do to a finding', () => {
 	it('its place (and fields) are edited by whoever raised it or a judge', () => {
 		expect(editRefused(powers('checker', 'anyone'), raised)).toBeNull();
 		expect(editRefused(powers('drafter', 'checker'), raised)).toBeNull();
-		expect(editRefused(powers('drafter'), raised)).toBe('Only whoever raised F-3 or a checker edits it');
+		expect(editRefused(powers('drafter'), raised)).toBe(
+			'Only whoever raised F-3 or a checker edits it'
+		);
 		expect(editRefused(powers('quality'), raised)).toBe(
 			'Your role (Supplier quality) does not edit findings'
 		);
