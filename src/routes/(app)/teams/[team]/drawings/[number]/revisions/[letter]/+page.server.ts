@@ -21,10 +21,17 @@ import type { Actions, PageServerLoad } from './$types';
 export const load: PageServerLoad = async ({ params }) => {
 	const place = await requireRevision(params.team, params.number, params.letter, 'view');
 	const { drawing, revision, membership } = place;
-	const uploader = revision.uploadedBy ? await getUserById(db, revision.uploadedBy) : null;
 	const frozen = isFrozen(revision.state);
 	const asker = { user: place.user, role: membership.role };
-	const [findings, fits] = await Promise.all([findingsOf(db, place), fitsOf(db, place)]);
+	const [uploader, features, findings, [fits, choices]] = await Promise.all([
+		revision.uploadedBy ? getUserById(db, revision.uploadedBy) : null,
+		featuresOf(db, place),
+		findingsOf(db, place),
+		fitsOf(db, place).then(async (fits) => {
+			const answers = fits as FitAnswer[];
+			return [answers, await findingChoices(db, place, answers)] as const;
+		})
+	]);
 	return {
 		drawing: publicDrawing(drawing),
 		revision: {
@@ -32,7 +39,7 @@ export const load: PageServerLoad = async ({ params }) => {
 			uploadedBy: uploader ? (uploader.name ?? uploader.email) : null,
 			frozen
 		},
-		features: await featuresOf(db, place),
+		features,
 		may: {
 			// The board is read-only without it, and on a frozen revision for everyone.
 			editFeatures: can(membership.role, 'editFeatures') && !frozen,
@@ -43,9 +50,9 @@ export const load: PageServerLoad = async ({ params }) => {
 		// What this person may do to findings; the API decides again on every write.
 		findingPowers: powersOf(asker),
 		// The service's answer, which the integration tests check against the fitResponse schema.
-		fits: fits as FitAnswer[],
+		fits,
 		/** What a new finding's fields offer. */
-		choices: await findingChoices(db, place, fits as FitAnswer[])
+		choices
 	};
 };
 
