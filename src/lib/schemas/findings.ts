@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { findingKinds, findingStates, severities } from '$lib/findings';
+import { findingKinds, findingStates, ruleFamilies, severities } from '$lib/findings';
 import { markerLocation } from './location';
 
 const findingText = z
@@ -96,6 +96,19 @@ export const findingQuery = z.object({
 		.toUpperCase()
 		.regex(/^[A-Z]{3}-\d{2}$/, { error: 'A rule code such as LIM-01' })
 		.optional(),
+	/** A rule family: LIM, ENV, GEO, FIT or DOC. */
+	family: z
+		.string()
+		.trim()
+		.toUpperCase()
+		.pipe(
+			z.enum(ruleFamilies as [string, ...string[]], {
+				error: `family is one of ${ruleFamilies.join(', ')}`
+			})
+		)
+		.optional(),
+	/** `true`: only waived findings; `false`: only findings without a waiver. */
+	waived: z.enum(['true', 'false'], { error: 'waived is true or false' }).optional(),
 	featureId: z.uuid({ error: "A feature's id" }).optional(),
 	fitId: z.uuid({ error: "A fit's id" }).optional()
 });
