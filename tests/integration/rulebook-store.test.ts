@@ -14,7 +14,9 @@ import { activity, findingMoves, revisions, teams } from '../../src/lib/server/d
 import type { DrawingRow, FindingRow, TeamRow } from '../../src/lib/server/db/schema';
 import type { Actor } from '../../src/lib/server/db/queries/activity';
 import { createDrawing, insertRevision } from '../../src/lib/server/db/queries/drawings';
+import { getFeature } from '../../src/lib/server/db/queries/features';
 import { listFindings } from '../../src/lib/server/db/queries/findings';
+import { getFit } from '../../src/lib/server/db/queries/fits';
 import { updateTeamSettings } from '../../src/lib/server/db/queries/teams';
 import {
 	addFeature,
@@ -22,11 +24,11 @@ import {
 	removeFeature,
 	type FeaturePlace
 } from '../../src/lib/server/features';
-import { addFit, editFit, removeFit } from '../../src/lib/server/fits';
+import { addFit, removeFit } from '../../src/lib/server/fits';
 import { changeFinding } from '../../src/lib/server/findings';
 import { checkSummaryOf, runCheck } from '../../src/lib/server/rulebook';
 import { featureInput, featurePatch } from '../../src/lib/schemas/features';
-import { fitCreate, fitPatch } from '../../src/lib/schemas/fits';
+import { fitCreate } from '../../src/lib/schemas/fits';
 import { findingPatch } from '../../src/lib/schemas/findings';
 import {
 	evaluate,
@@ -449,5 +451,213 @@ describe('each rule on stored data', () => {
 			await updateTeamSettings(database.db, actor, team.id, { capabilityGrade: null });
 		}
 		expect((await ruleFindings(s))[0].state).toBe('resolved');
+	});
+});
+
+describe('clean drawings', () => {
+	const located = (callout: string, internal: boolean) =>
+		feature(callout, internal, {
+			kind: internal ? 'bore' : 'shaft',
+			controls: [control('position', '0', 'mmc', ['A'])]
+		});
+	it('ISO: an H7/g6 running fit with Ⓔ, located from a datum, trips nothing', async () => {
+		const bore = located('Ø12 H7 Ⓔ', true);
+		const journal = located('Ø12 g6 Ⓔ', false);
+		const { s } = await expectStoredAsCore(
+			{ ...iso, datums: ['A'] },
+			[bore, journal],
+			[fit(bore, journal)]
+		);
+		expect(await ruleFindings(s)).toEqual([]);
+	});
+	it('ASME, mm: the same pair under Rule #1 trips nothing', async () => {
+		const bore = located('Ø12 H7', true);
+		const journal = located('Ø12 g6', false);
+		const d = { ...asmeMm, generalTolerance: null, datums: ['A'] };
+		const { s } = await expectStoredAsCore(d, [bore, journal], [fit(bore, journal)]);
+		expect(await ruleFindings(s)).toEqual([]);
+	});
+	it('ASME, inch: a .2510-.2520 hole on a .2490-.2500 pin trips nothing', async () => {
+		const hole = located('.2510-.2520', true);
+		const pin = located('.2490-.2500', false);
+		const { s } = await expectStoredAsCore(
+			{ ...asme, datums: ['A'] },
+			[hole, pin],
+			[fit(hole, pin)]
+		);
+		expect(await ruleFindings(s)).toEqual([]);
+	});
+});
+
+async function edit(s: Stored, fixtureId: string, patch: Record<string, unknown>) {
+	const row = await getFeature(database.db, s.place.revision.id, s.ids.get(fixtureId)!);
+	const done = await editFeature(
+		database.db,
+		actor,
+		s.place,
+		row!,
+		featurePatch.parse({ ...patch, version: row!.version })
+	);
+	if (!done.ok) throw new Error(done.message);
+	return done.feature;
+}
+
+async function patchFinding(s: Stored, finding: FindingRow, patch: Record<string, unknown>) {
+	const done = await changeFinding(
+		database.db,
+		{ user: actor, role: 'checker' },
+		s.place,
+		finding,
+		findingPatch.parse({ ...patch, version: finding.version })
+	);
+	if (!done.ok) throw new Error(done.message);
+	return done.finding;
+}
+
+async function only(s: Stored) {
+	const list = await ruleFindings(s);
+	expect(list).toHaveLength(1);
+	return list[0];
+}
+
+async function historyOf(id: string) {
+	return database.db
+		.select()
+		.from(findingMoves)
+		.where(eq(findingMoves.findingId, id))
+		.orderBy(findingMoves.id);
+}
+
+describe('findings that keep themselves true', () => {
+	// ISO 286-2:2010 table: H7 over 18 up to 30 mm is 0/+0.021, so 25.025 disagrees (LIM-04).
+	const wrong = 'Ø25 H7 (25.000/25.025)';
+	it('a re-run adds nothing; a fix resolves; breaking it again raises the same finding', async () => {
+		const bore = feature(wrong, true, { label: 'Bore' });
+		const s = await store(iso, [bore]);
+		const first = await only(s);
+		expect(first).toMatchObject({ rule: 'LIM-04', state: 'raised', severity: 'major' });
+
+		const checked = await runCheck(database.db, actor, s.place.revision);
+		expect(checked.ok && checked.summary).toMatchObject({ total: 1, open: 1, waived: 0 });
+		expect(checked.ok && checked.summary.bySeverity.major.open).toBe(1);
+		expect(checked.ok && checked.summary.byFamily.LIM.open).toBe(1);
+		const again = await only(s);
+		expect([again.id, again.number, again.version]).toEqual([
+			first.id,
+			first.number,
+			first.version
+		]);
+
+		await edit(s, bore.id, { callout: 'Ø25 H7 (25.000/25.021)' });
+		const fixed = await only(s);
+		expect(fixed.state).toBe('resolved');
+		const resolvedMove = (await historyOf(fixed.id)).at(-1)!;
+		expect(resolvedMove).toMatchObject({ from: 'raised', to: 'resolved', byId: null });
+		expect(resolvedMove.message).toMatch(/no longer finds/);
+
+		await edit(s, bore.id, { callout: wrong });
+		const back = await only(s);
+		expect([back.id, back.state]).toEqual([first.id, 'raised']);
+		expect((await historyOf(back.id)).at(-1)!.message).toContain('25.025');
+	});
+
+	it('a waiver holds until the numbers behind the finding change, then lapses into the history', async () => {
+		const bore = feature(wrong, true, { label: 'Bore' });
+		const s = await store(iso, [bore]);
+		const waived = await patchFinding(s, await only(s), {
+			waiver: { reason: 'The shop reams to 25.025; agreed with the customer' }
+		});
+		expect(waived.waiver).toMatchObject({ by: actor.id, reason: expect.stringContaining('reams') });
+		// Re-runs and edits that leave the numbers alone keep it.
+		await runCheck(database.db, actor, s.place.revision);
+		await edit(s, bore.id, { label: 'Main bore' });
+		expect((await only(s)).waiver).not.toBeNull();
+		let summary = await checkSummaryOf(database.db, s.place.revision.id);
+		expect(summary).toMatchObject({ open: 0, waived: 1 });
+		expect(summary.bySeverity.major).toEqual({ open: 0, waived: 1, closed: 0 });
+
+		await edit(s, bore.id, { callout: 'Ø25 H7 (25.000/25.030)' });
+		const lapsed = await only(s);
+		expect(lapsed.waiver).toBeNull();
+		expect(lapsed.state).toBe('raised');
+		const note = (await historyOf(lapsed.id)).at(-1)!;
+		expect(note.message).toMatch(/Waiver lapsed/);
+		expect(note.message).toContain('25.025');
+		expect(note.message).toContain('25.030');
+		expect(note.message).toContain('reams to 25.025');
+		summary = await checkSummaryOf(database.db, s.place.revision.id);
+		expect(summary).toMatchObject({ open: 1, waived: 0 });
+
+		// Taken back by the checker: null again, and the history says so.
+		const again = await patchFinding(s, lapsed, { waiver: { reason: 'Agreed again' } });
+		const row = await only(s);
+		expect(again.waiver).not.toBeNull();
+		const withdrawn = await patchFinding(s, row, { waiver: null });
+		expect(withdrawn.waiver).toBeNull();
+		expect((await historyOf(row.id)).map((m) => m.message)).toEqual(
+			expect.arrayContaining(['Waived: Agreed again', expect.stringMatching(/^Waiver taken back/)])
+		);
+	});
+
+	it('removing the feature resolves its findings; a fit delete resolves the fit findings', async () => {
+		const hole = feature('Ø6 H7 Ⓔ', true, { controls: [position0()] });
+		const pin = feature('Ø6 h6 Ⓔ', false, { kind: 'pin', controls: [position0()] });
+		const pair = fit(hole, pin);
+		const s = await store(iso, [hole, pin], [pair]);
+		const fit01 = (await ruleFindings(s)).find((f) => f.rule === 'FIT-01')!;
+		expect(fit01.fitId).toBe(s.ids.get(pair.id));
+		const fitRow = (await getFit(database.db, s.place.revision.id, s.ids.get(pair.id)!))!;
+		const removed = await removeFit(database.db, actor, s.place, fitRow, fitRow.version);
+		expect(removed.ok).toBe(true);
+		const after = (await ruleFindings(s)).find((f) => f.id === fit01.id)!;
+		expect(after.state).toBe('resolved');
+	});
+});
+
+describe('fits across drawings', () => {
+	it('a change on the shaft drawing re-checks the fit on the hole drawing, unless it is frozen', async () => {
+		const bore = feature('Ø12 H7 Ⓔ', true, { label: 'Bore', controls: [position0()] });
+		const journal = feature('Ø12 g6 Ⓔ', false, { label: 'Journal', controls: [position0()] });
+		const holeSide = await store(iso, [bore]);
+		const shaftSide = await store(iso, [journal]);
+		const added = await addFit(
+			database.db,
+			actor,
+			holeSide.place,
+			fitCreate.parse({
+				holeFeatureId: holeSide.ids.get(bore.id),
+				shaftFeatureId: shaftSide.ids.get(journal.id),
+				intent: 'running'
+			})
+		);
+		expect(added.ok).toBe(true);
+		expect(await ruleFindings(holeSide)).toEqual([]);
+
+		// h6 at 12 mm: MMC 12.000, so the running fit has no allowance (ISO 286-2:2010 tables).
+		await edit(shaftSide, journal.id, { callout: 'Ø12 h6 Ⓔ' });
+		const [fit01] = await ruleFindings(holeSide);
+		expect(fit01).toMatchObject({ rule: 'FIT-01', state: 'raised' });
+		expect(fit01.ruleNumbers).toBe(
+			'MMC hole 12.000 − MMC shaft 12.000 = 0.000, required > 0 for a running fit'
+		);
+		expect(await ruleFindings(shaftSide)).toEqual([]);
+
+		// The hole's revision is approved: left as it was, and a note says so.
+		await database.db
+			.update(revisions)
+			.set({ state: 'approved' })
+			.where(eq(revisions.id, holeSide.place.revision.id));
+		await edit(shaftSide, journal.id, { callout: 'Ø12 g6 Ⓔ' });
+		const [kept] = await ruleFindings(holeSide);
+		expect([kept.state, kept.version]).toEqual(['raised', fit01.version]);
+		const notes = await database.db
+			.select()
+			.from(activity)
+			.where(
+				and(eq(activity.drawingId, shaftSide.place.drawing.id), eq(activity.action, 'rulebook'))
+			);
+		expect(notes.map((a) => a.summary).join('\n')).toMatch(
+			new RegExp(`Revision A of ${holeSide.place.drawing.number} is approved: .*left as it was`)
+		);
 	});
 });
