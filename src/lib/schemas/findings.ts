@@ -174,3 +174,19 @@ export const commentResponse = z.object({
 	createdAt: z.string(),
 	editedAt: z.string().nullable()
 });
+
+const checkCounts = z.object({
+	open: z.number().int().describe('Open and not waived'),
+	waived: z.number().int().describe('Open with a waiver: counts as closed'),
+	closed: z.number().int().describe('Resolved, verified or withdrawn')
+});
+
+/** POST …/revisions/{letter}/check: the revision's rule findings counted after a full check. */
+export const checkSummaryResponse = checkCounts.extend({
+	total: z.number().int(),
+	bySeverity: z.record(z.enum(severities), checkCounts),
+	byFamily: z.record(z.string(), checkCounts).describe('LIM, ENV, GEO, FIT, DOC'),
+	notes: z
+		.array(z.string())
+		.describe('What the check left alone, e.g. the side of a fit on a frozen revision')
+});

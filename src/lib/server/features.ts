@@ -308,7 +308,8 @@ export type ImportOutcome =
 
 /**
  * Adds the rows of an imported file, all or none: each row is checked as `addFeature` checks
- * one, its callout read under the revision's settings; the features are not yet placed.
+ * one, its callout read under the revision's settings; a file's features are not yet placed.
+ * The rulebook re-checks them once, together.
  */
 export async function importFeatures(
 	db: Db,
@@ -329,7 +330,7 @@ export async function importFeatures(
 		const spec = checked.result?.ok ? checked.result.spec : null;
 		list.push({
 			...input,
-			location: null,
+			location: input.location ?? null,
 			internal,
 			quantity: input.quantity ?? spec?.quantity ?? 1
 		});
