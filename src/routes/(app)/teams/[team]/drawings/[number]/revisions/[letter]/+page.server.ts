@@ -9,6 +9,7 @@ import { listFindings } from '$lib/server/db/queries/findings';
 import { countFindings } from '$lib/findings';
 import { requireRevision } from '$lib/server/drawings';
 import { featuresOf } from '$lib/server/features';
+import { checkSummaryOf } from '$lib/server/rulebook';
 import { fieldErrorsOf, refuseForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -31,7 +32,9 @@ export const load: PageServerLoad = async ({ params }) => {
 			editFeatures: can(membership.role, 'editFeatures') && !frozen,
 			editSettings: can(membership.role, 'author') && !frozen
 		},
-		findingCounts
+		findingCounts,
+		checkSummary: await checkSummaryOf(db, revision.id),
+		mayCheck: can(membership.role, 'judgeFindings') && !frozen
 	};
 };
 
