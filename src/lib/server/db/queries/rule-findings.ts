@@ -123,24 +123,21 @@ interface Place {
 	team: RulebookTeam;
 }
 
-/** The revision (locked), its drawing and its team's rulebook settings. */
+/** The revision (locked), its drawing and its team's rulebook settings, in one query. */
 async function placeOf(tx: Db, revisionId: string): Promise<Place> {
-	const [revision] = await tx
-		.select()
+	const [row] = await tx
+		.select({ revision: revisions, drawing: drawings, settings: teams.settings })
 		.from(revisions)
+		.innerJoin(drawings, eq(drawings.id, revisions.drawingId))
+		.innerJoin(teams, eq(teams.id, drawings.teamId))
 		.where(eq(revisions.id, revisionId))
-		.for('update');
-	const [drawing] = await tx.select().from(drawings).where(eq(drawings.id, revision.drawingId));
-	const [team] = await tx
-		.select({ settings: teams.settings })
-		.from(teams)
-		.where(eq(teams.id, drawing.teamId));
+		.for('update', { of: revisions });
 	return {
-		revision,
-		drawing,
+		revision: row.revision,
+		drawing: row.drawing,
 		team: {
-			severityOverrides: team.settings.severityOverrides,
-			capabilityGrade: team.settings.capabilityGrade ?? null
+			severityOverrides: row.settings.severityOverrides,
+			capabilityGrade: row.settings.capabilityGrade ?? null
 		}
 	};
 }
