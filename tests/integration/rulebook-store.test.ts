@@ -611,6 +611,15 @@ describe('findings that keep themselves true', () => {
 		expect(removed.ok).toBe(true);
 		const after = (await ruleFindings(s)).find((f) => f.id === fit01.id)!;
 		expect(after.state).toBe('resolved');
+
+		const slot = feature('(2.4)', true, { kind: 'slot' });
+		const alone = await store(iso, [slot]);
+		const lim01 = await only(alone);
+		expect(lim01.rule).toBe('LIM-01');
+		const row = (await getFeature(database.db, alone.place.revision.id, alone.ids.get(slot.id)!))!;
+		expect((await removeFeature(database.db, actor, alone.place, row, row.version)).ok).toBe(true);
+		const gone = await only(alone);
+		expect([gone.id, gone.state, gone.featureId]).toEqual([lim01.id, 'resolved', null]);
 	});
 });
 
