@@ -7,12 +7,7 @@ import { findingJson, sizeJson } from '$lib/calc-api';
 import { internalKinds, type FeatureJson } from '$lib/features';
 import type { FeatureInput, FeaturePatch } from '$lib/schemas/features';
 import { evaluateFeature, type FeatureResult } from '$lib/tolerance/feature';
-import {
-	evaluate,
-	type RuleResult,
-	type RulebookFeature,
-	type RulebookTeam
-} from '$lib/tolerance/rulebook';
+import { evaluate, type RuleResult, type RulebookTeam } from '$lib/tolerance/rulebook';
 import { writeRefusal } from './api';
 import type { Db } from './db/connect';
 import type { Actor } from './db/queries/activity';
@@ -25,6 +20,7 @@ import {
 	storedFeature,
 	updateFeature
 } from './db/queries/features';
+import { rulebookFeature } from './db/queries/rule-findings';
 import type { DrawingRow, FeatureRow, RevisionRow, TeamRow } from './db/schema';
 
 /** Where a feature sits: the team (for its rulebook settings), the drawing and the revision. */
@@ -103,20 +99,7 @@ function rulebookFindings(place: FeaturePlace, rows: FeatureRow[]) {
 			notes: place.drawing.notes,
 			datums: faces.map((f) => f.datumFeature!)
 		},
-		features: sized.map((r): RulebookFeature => ({
-			id: r.id,
-			balloon: r.balloon,
-			label: r.label,
-			kind: r.kind,
-			internal: r.internal,
-			callout: r.callout,
-			quantity: r.quantity,
-			controls: r.controls,
-			overrides: r.overrides,
-			datumFeature: r.datumFeature ?? undefined,
-			boughtOut: r.boughtOut,
-			notes: r.notes
-		})),
+		features: sized.map((r) => rulebookFeature(r)),
 		fits: [],
 		team
 	});

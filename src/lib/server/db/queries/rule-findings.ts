@@ -72,7 +72,8 @@ export function ruleFindingText(r: RuleResult): string {
 	].join('\n');
 }
 
-function rulebookFeature(row: FeatureRow, drawing?: RulebookDrawing): RulebookFeature {
+/** A stored feature as the rulebook reads it; `drawing` for one judged under another drawing. */
+export function rulebookFeature(row: FeatureRow, drawing?: RulebookDrawing): RulebookFeature {
 	return {
 		id: row.id,
 		balloon: row.balloon,
@@ -328,15 +329,7 @@ export async function recheckRevision(
 			if (isFrozen(other.state)) {
 				const note = `Revision ${other.letter} of ${other.number} is ${other.state}: its side of the fits was left as it was, not re-checked.`;
 				outcome.notes.push(note);
-				await recordActivity(tx, {
-					teamId: drawing.teamId,
-					actor,
-					entity: 'revision',
-					entityId: revision.id,
-					drawingId: drawing.id,
-					action: 'rulebook',
-					summary: `the rulebook on revision ${revision.letter} of ${drawing.number}: ${note}`
-				});
+				await recordRulebook(tx, actor, place, note);
 				continue;
 			}
 			const more = await recheckRevision(
@@ -462,6 +455,21 @@ async function keepFindings(
 		await tx.insert(findingMoves).values(moves.slice(i, i + CHUNK));
 	if (!said.length) return;
 	const shown = said.length > 12 ? [...said.slice(0, 12), `and ${said.length - 12} more`] : said;
+	await recordRulebook(tx, actor, { revision, drawing }, shown.join(', '), {
+		raised: fresh.length,
+		reopened: outcome.reopened,
+		resolved: outcome.resolved
+	});
+}
+
+/** What the rulebook did on a revision, on the trail, in the name of whose change called it. */
+async function recordRulebook(
+	tx: Db,
+	actor: Actor | null,
+	{ revision, drawing }: Pick<Place, 'revision' | 'drawing'>,
+	what: string,
+	after?: Record<string, number>
+) {
 	await recordActivity(tx, {
 		teamId: drawing.teamId,
 		actor,
@@ -469,8 +477,8 @@ async function keepFindings(
 		entityId: revision.id,
 		drawingId: drawing.id,
 		action: 'rulebook',
-		summary: `the rulebook on revision ${revision.letter} of ${drawing.number}: ${shown.join(', ')}`,
-		after: { raised: fresh.length, reopened: outcome.reopened, resolved: outcome.resolved }
+		summary: `the rulebook on revision ${revision.letter} of ${drawing.number}: ${what}`,
+		...(after ? { after } : {})
 	});
 }
 
