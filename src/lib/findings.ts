@@ -9,6 +9,7 @@ import type {
 	findingPatch,
 	findingResponse
 } from '$lib/schemas/findings';
+import { FAMILIES } from '$lib/tolerance/rulebook/catalogue';
 import type { Severity } from '$lib/tolerance/rulebook';
 import type { Marker, MarkerFinish } from '$lib/board/markers';
 import { writeViewLink } from '$lib/board/view-params';
@@ -213,4 +214,53 @@ export function countFindings(list: readonly { state: FindingState; severity: Se
 		}
 	}
 	return counts;
+}
+
+/** The rule families (LIM, ENV, GEO, FIT, DOC), in the catalogue's order. */
+export const ruleFamilies = FAMILIES.map((f) => f.prefix);
+
+/** Open and not waived, open but waived, and closed (resolved, verified, withdrawn). */
+export interface CheckCounts {
+	open: number;
+	waived: number;
+	closed: number;
+}
+
+/** The check summary of a revision: its rule findings by severity and by rule family. */
+export interface CheckSummary extends CheckCounts {
+	total: number;
+	bySeverity: Record<Severity, CheckCounts>;
+	byFamily: Record<string, CheckCounts>;
+}
+
+/** Counts a revision's rule findings for its check summary; a waived finding counts as closed there. */
+export function summarizeCheck(
+	list: readonly {
+		kind: FindingKind;
+		rule: string | null;
+		severity: Severity;
+		state: FindingState;
+		waiver: unknown;
+	}[]
+): CheckSummary {
+	const zero = (): CheckCounts => ({ open: 0, waived: 0, closed: 0 });
+	const summary: CheckSummary = {
+		total: 0,
+		...zero(),
+		bySeverity: Object.fromEntries(severities.map((s) => [s, zero()])) as Record<
+			Severity,
+			CheckCounts
+		>,
+		byFamily: Object.fromEntries(ruleFamilies.map((f) => [f, zero()]))
+	};
+	for (const f of list) {
+		if (f.kind !== 'rule') continue;
+		const which: keyof CheckCounts = !isOpen(f.state) ? 'closed' : f.waiver ? 'waived' : 'open';
+		summary.total += 1;
+		summary[which] += 1;
+		summary.bySeverity[f.severity][which] += 1;
+		const family = (f.rule ?? '').slice(0, 3);
+		if (summary.byFamily[family]) summary.byFamily[family][which] += 1;
+	}
+	return summary;
 }

@@ -46,6 +46,15 @@ export async function screenshot(page: Page, name: string) {
 	await page.screenshot({ path: `${artifactsDir}/${name}.png`, fullPage: true });
 }
 
+/** A new browser context signed in as `email`, watching for requests that leave the app. */
+export async function personAt(browser: Browser, baseUrl: string, email: string) {
+	const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+	const page = await context.newPage();
+	const outside = watchOutsideRequests(page, baseUrl);
+	await signIn(page, baseUrl, email);
+	return { page, outside };
+}
+
 /** The demo users' password in test runs (set by global-setup.ts). */
 export const demoPassword = 'demo-password-for-tests';
 

@@ -4,7 +4,7 @@ import type { Marker } from '../../src/lib/board/markers';
 import { Client } from '../app/client';
 import { draftRevision } from '../app/revisions';
 import { settled } from './board-drawing';
-import { launchBrowser, screenshot, signIn, watchOutsideRequests } from './browser';
+import { launchBrowser, personAt as signedIn, screenshot } from './browser';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -16,13 +16,7 @@ afterAll(async () => {
 	await browser?.close();
 });
 
-async function personAt(email: string) {
-	const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-	const page = await context.newPage();
-	const outside = watchOutsideRequests(page, baseUrl);
-	await signIn(page, baseUrl, email);
-	return { page, outside };
-}
+const personAt = (email: string) => signedIn(browser, baseUrl, email);
 
 /** Presses a state change on the finding's page, with a message, and waits for the new state. */
 async function move(page: Page, button: string, message: string, state: string) {
@@ -101,9 +95,10 @@ describe('a finding through its table and its thread', () => {
 		const revision = `${baseUrl}/teams/kestrel/drawings/KF-1001/revisions/A`;
 		await checker.page.goto(revision);
 		const counts = checker.page.locator('[data-finding-counts]');
-		await counts.getByText('1 open').waitFor();
+		// The rulebook's four findings on KF-1001 (README demo section) and the checker's anodising one.
+		await counts.getByText('5 open').waitFor();
 		await checker.page.getByRole('link', { name: 'Findings', exact: true }).click();
-		const anodise = checker.page.locator('[data-finding="1"]');
+		const anodise = checker.page.locator('[data-finding="5"]');
 		await anodise.getByText('Anodising').waitFor();
 		const href = await anodise.getByRole('link', { name: 'Show on sheet 1' }).getAttribute('href');
 		const view = new URL(href!, baseUrl).searchParams;
@@ -111,7 +106,7 @@ describe('a finding through its table and its thread', () => {
 		expect(view.get('show')).toMatch(/^finding-[0-9a-f-]{36}$/);
 		expect(view.get('centre')).toMatch(/^0\.\d{5},0\.\d{5}$/);
 		await screenshot(checker.page, 'findings-demo');
-		await anodise.getByRole('link', { name: 'F-1' }).click();
+		await anodise.getByRole('link', { name: 'F-5' }).click();
 		await checker.page.locator('[data-thread] .mention').first().waitFor();
 		expect(checker.outside).toEqual([]);
 	});

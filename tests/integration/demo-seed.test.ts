@@ -1,3 +1,5 @@
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Database } from '../../src/lib/server/db/connect';
 import { getDrawing, getRevision } from '../../src/lib/server/db/queries/drawings';
@@ -119,7 +121,7 @@ describe('the demo board', () => {
 		const byDrawing: Record<string, string[]> = {};
 		for (const number of ['KF-1001', 'KF-1002', 'KF-1003', 'KF-2001']) {
 			const place = await placeOf(number);
-			const list = await findingsOf(database.db, place);
+			const list = await findingsOf(database.db, place, { kind: 'manual' });
 			byDrawing[number] = list.map((f) => `F-${f.number} ${f.severity} ${f.state}`);
 			for (const f of list) {
 				expect(f).toMatchObject({ kind: 'manual', rule: null });
@@ -128,13 +130,14 @@ describe('the demo board', () => {
 		}
 		// Seeded twice (beforeAll), numbered once.
 		expect(byDrawing).toEqual({
-			'KF-1001': ['F-1 minor raised', 'F-2 note resolved'],
-			'KF-1002': ['F-1 major answered'],
+			// Numbered after the rulebook's own findings, raised as the drawings were made.
+			'KF-1001': ['F-5 minor raised', 'F-6 note resolved'],
+			'KF-1002': ['F-2 major answered'],
 			'KF-1003': [],
-			'KF-2001': ['F-1 note withdrawn']
+			'KF-2001': ['F-5 note withdrawn']
 		});
 		const shaft = await placeOf('KF-1002');
-		const [keyway] = await findingsOf(database.db, shaft);
+		const [keyway] = await findingsOf(database.db, shaft, { kind: 'manual' });
 		const finding = (await getFinding(database.db, shaft.revision.id, keyway.id))!;
 		const thread = await commentsOf(database.db, findingThread(shaft, finding));
 		expect(thread).toHaveLength(2);
@@ -142,7 +145,54 @@ describe('the demo board', () => {
 		expect(thread[0].html).toContain('class="mention"');
 		expect(thread[0].html).toContain('<li>');
 		const housing = await placeOf('KF-1001');
-		const [anodise] = await findingsOf(database.db, housing);
+		const [anodise] = await findingsOf(database.db, housing, { kind: 'manual' });
 		expect(anodise.location).toMatchObject({ w: 0.3, h: 0.035 });
+	});
+});
+
+/** The rows of a README table between its markers: the first four cells of each. */
+function readmeTable(marker: string): string[][] {
+	const readme = readFileSync(join(process.cwd(), 'README.md'), 'utf8');
+	const start = readme.indexOf(`<!-- ${marker}: start -->`);
+	const end = readme.indexOf(`<!-- ${marker}: end -->`);
+	expect(start, `README ${marker} table`).toBeGreaterThan(0);
+	return readme
+		.slice(start, end)
+		.split('\n')
+		.filter((line) => line.startsWith('|'))
+		.slice(2)
+		.map((line) =>
+			line
+				.slice(1, -1)
+				.split('|')
+				.map((cell) => cell.trim())
+				.slice(0, 5)
+		);
+}
+
+describe("the demo's rule findings on stored data", () => {
+	it('are exactly the README demo table, where each drawing keeps them', async () => {
+		const rows: string[][] = [];
+		for (const number of ['KF-1001', 'KF-1002', 'KF-1003', 'KF-2001']) {
+			const place = await placeOf(number);
+			const features = new Map((await boardOf(number)).map((f) => [f.id, f.label]));
+			const fits = new Map(
+				(await fitsOf(database.db, place)).map((f) => [
+					f.id,
+					`${f.members.hole.label} / ${f.members.shaft?.label ?? f.fastener?.label ?? 'fastener'}`
+				])
+			);
+			for (const f of await findingsOf(database.db, place, { kind: 'rule' })) {
+				expect(f.state, `${number} F-${f.number}`).toBe('raised');
+				rows.push([
+					number,
+					`F-${f.number}`,
+					f.rule!,
+					f.severity,
+					f.fitId ? fits.get(f.fitId)! : f.featureId ? features.get(f.featureId)! : 'drawing'
+				]);
+			}
+		}
+		expect(rows).toEqual(readmeTable('stored demo findings'));
 	});
 });

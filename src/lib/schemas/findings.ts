@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { findingKinds, findingStates, severities } from '$lib/findings';
+import { findingKinds, findingStates, ruleFamilies, severities } from '$lib/findings';
 import { markerLocation } from './location';
 
 const findingText = z
@@ -96,6 +96,19 @@ export const findingQuery = z.object({
 		.toUpperCase()
 		.regex(/^[A-Z]{3}-\d{2}$/, { error: 'A rule code such as LIM-01' })
 		.optional(),
+	/** A rule family: LIM, ENV, GEO, FIT or DOC. */
+	family: z
+		.string()
+		.trim()
+		.toUpperCase()
+		.pipe(
+			z.enum(ruleFamilies as [string, ...string[]], {
+				error: `family is one of ${ruleFamilies.join(', ')}`
+			})
+		)
+		.optional(),
+	/** `true`: only waived findings; `false`: only findings without a waiver. */
+	waived: z.enum(['true', 'false'], { error: 'waived is true or false' }).optional(),
 	featureId: z.uuid({ error: "A feature's id" }).optional(),
 	fitId: z.uuid({ error: "A fit's id" }).optional()
 });
@@ -160,4 +173,20 @@ export const commentResponse = z.object({
 	authorId: who,
 	createdAt: z.string(),
 	editedAt: z.string().nullable()
+});
+
+const checkCounts = z.object({
+	open: z.number().int().describe('Open and not waived'),
+	waived: z.number().int().describe('Open with a waiver: counts as closed'),
+	closed: z.number().int().describe('Resolved, verified or withdrawn')
+});
+
+/** POST …/revisions/{letter}/check: the revision's rule findings counted after a full check. */
+export const checkSummaryResponse = checkCounts.extend({
+	total: z.number().int(),
+	bySeverity: z.record(z.enum(severities), checkCounts),
+	byFamily: z.record(z.string(), checkCounts).describe('LIM, ENV, GEO, FIT, DOC'),
+	notes: z
+		.array(z.string())
+		.describe('What the check left alone, e.g. the side of a fit on a frozen revision')
 });

@@ -1,4 +1,7 @@
 import { z } from 'zod';
+import { severities } from '$lib/findings';
+import { GRADES } from '$lib/tolerance/tables/iso286';
+import { RULE_CODES } from '$lib/tolerance/rulebook/types';
 import { email } from './auth';
 
 export const role = z.enum(['admin', 'drafter', 'checker', 'quality'], {
@@ -63,4 +66,39 @@ export const activityQuery = z.object({
 		.min(1, { error: 'limit must be between 1 and 500' })
 		.max(500, { error: 'limit must be between 1 and 500' })
 		.optional()
+});
+
+const severity = z.enum(severities, { error: `A severity is one of ${severities.join(', ')}` });
+
+/** A rule's severity for the team, by rule code; a rule left out keeps the catalogue's default. */
+export const severityOverrides = z
+	.record(z.string(), severity)
+	.refine((o) => Object.keys(o).every((k) => (RULE_CODES as readonly string[]).includes(k)), {
+		error: 'Each key is a rule code such as LIM-01'
+	})
+	.transform((o) => o as Partial<Record<(typeof RULE_CODES)[number], z.output<typeof severity>>>);
+
+/** The finest IT grade the team's shops hold as a matter of course (LIM-06), or null for none. */
+export const capabilityGrade = z
+	.enum(GRADES, { error: 'The capability is an IT grade from IT01 to IT18' })
+	.nullable();
+
+/** PATCH /teams/{team}: the team's settings, made against `version`. */
+export const teamPatch = z
+	.object({
+		version: z.number().int().positive({ error: 'Send the version you changed' }),
+		allowSelfApproval: z.boolean().optional(),
+		severityOverrides: severityOverrides.optional(),
+		capabilityGrade: capabilityGrade.optional()
+	})
+	.strict();
+
+/** The team's settings as PATCH /teams/{team} answers them. */
+export const teamSettingsResponse = z.object({
+	slug: z.string(),
+	name: z.string(),
+	allowSelfApproval: z.boolean(),
+	severityOverrides: z.record(z.string(), severity),
+	capabilityGrade: z.string().nullable(),
+	version: z.number().int()
 });

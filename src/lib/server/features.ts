@@ -7,12 +7,7 @@ import { findingJson, sizeJson } from '$lib/calc-api';
 import { internalKinds, type FeatureJson } from '$lib/features';
 import type { FeatureInput, FeaturePatch } from '$lib/schemas/features';
 import { evaluateFeature, type FeatureResult } from '$lib/tolerance/feature';
-import {
-	evaluate,
-	type RuleResult,
-	type RulebookFeature,
-	type RulebookTeam
-} from '$lib/tolerance/rulebook';
+import { evaluate, type RuleResult, type RulebookTeam } from '$lib/tolerance/rulebook';
 import { writeRefusal } from './api';
 import type { Db } from './db/connect';
 import type { Actor } from './db/queries/activity';
@@ -25,6 +20,7 @@ import {
 	storedFeature,
 	updateFeature
 } from './db/queries/features';
+import { rulebookFeature } from './db/queries/rule-findings';
 import type { DrawingRow, FeatureRow, RevisionRow, TeamRow } from './db/schema';
 
 /** Where a feature sits: the team (for its rulebook settings), the drawing and the revision. */
@@ -103,20 +99,7 @@ function rulebookFindings(place: FeaturePlace, rows: FeatureRow[]) {
 			notes: place.drawing.notes,
 			datums: faces.map((f) => f.datumFeature!)
 		},
-		features: sized.map((r): RulebookFeature => ({
-			id: r.id,
-			balloon: r.balloon,
-			label: r.label,
-			kind: r.kind,
-			internal: r.internal,
-			callout: r.callout,
-			quantity: r.quantity,
-			controls: r.controls,
-			overrides: r.overrides,
-			datumFeature: r.datumFeature ?? undefined,
-			boughtOut: r.boughtOut,
-			notes: r.notes
-		})),
+		features: sized.map((r) => rulebookFeature(r)),
 		fits: [],
 		team
 	});
@@ -308,7 +291,8 @@ export type ImportOutcome =
 
 /**
  * Adds the rows of an imported file, all or none: each row is checked as `addFeature` checks
- * one, its callout read under the revision's settings; the features are not yet placed.
+ * one, its callout read under the revision's settings; a file's features are not yet placed.
+ * The rulebook re-checks them once, together.
  */
 export async function importFeatures(
 	db: Db,
@@ -329,7 +313,7 @@ export async function importFeatures(
 		const spec = checked.result?.ok ? checked.result.spec : null;
 		list.push({
 			...input,
-			location: null,
+			location: input.location ?? null,
 			internal,
 			quantity: input.quantity ?? spec?.quantity ?? 1
 		});

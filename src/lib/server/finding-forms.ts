@@ -46,6 +46,18 @@ export async function readMoveForm(request: Request) {
 	);
 }
 
+/** A waiver: `reason` to waive, `take=back` to withdraw it; made against `version`. */
+export async function readWaiverForm(request: Request) {
+	const { form, values } = await fieldsOf(request);
+	const waiver = values.take === 'back' ? null : { reason: values.reason ?? '' };
+	const read = parsed(findingPatch, { waiver, version: Number(values.version) }, form);
+	if (read.ok || !('waiver' in (read.failure.data.errors ?? {}))) return read;
+	return {
+		ok: false as const,
+		failure: fail(400, { values: form, errors: { reason: ['Say why the finding is waived'] } })
+	};
+}
+
 /** A comment (`body`), and for an edit the comment's `id`. */
 export async function readCommentForm(request: Request) {
 	const { form, values } = await fieldsOf(request);

@@ -15,6 +15,7 @@ import {
 	commentResponse,
 	findingInput,
 	findingPatch,
+	checkSummaryResponse,
 	findingQuery,
 	findingResponse
 } from '$lib/schemas/findings';
@@ -26,7 +27,9 @@ import {
 	memberInput,
 	openInvitation,
 	roleInput,
-	teamInput
+	teamInput,
+	teamPatch,
+	teamSettingsResponse
 } from '$lib/schemas/teams';
 
 type Method = 'get' | 'post' | 'patch' | 'delete';
@@ -64,6 +67,21 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 	'/teams': {
 		get: { summary: 'Your teams with your role in each', success: 200 },
 		post: { summary: 'Create a team; you become its admin', body: teamInput, success: 201 }
+	},
+	'/teams/{team}': {
+		get: {
+			summary:
+				"The team's settings (self-approval, the rulebook's severities, the capability grade)",
+			response: teamSettingsResponse,
+			success: 200
+		},
+		patch: {
+			summary:
+				"Change the team's settings with `version` (admin): `allowSelfApproval`, `severityOverrides` (rule code → severity; the catalogue's severities are defaults) and `capabilityGrade` (the IT grade LIM-06 compares with, or null). The team's revisions that are not frozen are re-checked at once; 409 stale with the current settings",
+			body: teamPatch,
+			response: teamSettingsResponse,
+			success: 200
+		}
 	},
 	'/teams/{team}/members': {
 		get: { summary: 'Members and their roles', success: 200 },
@@ -220,7 +238,7 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 	'/teams/{team}/drawings/{number}/revisions/{letter}/findings': {
 		get: {
 			summary:
-				'Findings on the revision by number, filtered by any of kind, state (comma-separated; `open` = raised or answered), severity, assigneeId (`none`: unassigned), rule, featureId, fitId',
+				'Findings on the revision by number, filtered by any of kind, state (comma-separated; `open` = raised or answered), severity, assigneeId (`none`: unassigned), rule, family (LIM, ENV, GEO, FIT, DOC), waived (true or false), featureId, fitId',
 			query: findingQuery,
 			response: z.array(findingResponse),
 			success: 200
@@ -231,6 +249,14 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 			body: findingInput,
 			response: findingResponse,
 			success: 201
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/check': {
+		post: {
+			summary:
+				"Run the rulebook in full on the revision (checker or admin) and answer its check summary: rule findings open, waived and closed, by severity and by rule family. Every change to the revision's settings, features and fits already re-checks what it touches; 409 frozen",
+			response: checkSummaryResponse,
+			success: 200
 		}
 	},
 	'/teams/{team}/drawings/{number}/revisions/{letter}/findings/{id}': {

@@ -59,3 +59,15 @@ export async function invite(
 		}
 	};
 }
+
+/** The team's settings as the API answers them (GET and PATCH /teams/{team}). */
+export function teamSettingsOf(team: TeamRow) {
+	return {
+		slug: team.slug,
+		name: team.name,
+		allowSelfApproval: team.allowSelfApproval,
+		severityOverrides: team.settings.severityOverrides ?? {},
+		capabilityGrade: team.settings.capabilityGrade ?? null,
+		version: team.version
+	};
+}

@@ -403,7 +403,11 @@ export const fits = pgTable(
 	},
 	(table) => [
 		index('fits_revision_idx').on(table.revisionId),
-		index('fits_shaft_revision_idx').on(table.shaftRevisionId)
+		index('fits_shaft_revision_idx').on(table.shaftRevisionId),
+		// The rulebook re-checks the fits a feature is a member of.
+		index('fits_hole_feature_idx').on(table.holeFeatureId),
+		index('fits_shaft_feature_idx').on(table.shaftFeatureId),
+		index('fits_fixed_hole_feature_idx').on(table.fixedHoleFeatureId)
 	]
 );
 
@@ -438,6 +442,12 @@ export const findings = pgTable(
 		kind: text('kind', { enum: findingKinds }).notNull().default('manual'),
 		rule: text('rule'),
 		ruleKey: text('rule_key'),
+		// A rule finding's subject as its key names it (`drawing`, `feature:<id>`, `fit:<id>`), so
+		// a re-check finds the findings of what it judged even after the feature or fit is gone.
+		ruleSubject: text('rule_subject'),
+		// The numbers behind a rule finding as the rulebook last wrote them: a waiver lapses when
+		// they change.
+		ruleNumbers: text('rule_numbers'),
 		severity: text('severity', { enum: severities }).notNull(),
 		state: text('state', { enum: findingStates }).notNull().default('raised'),
 		text: text('text').notNull(),
@@ -455,6 +465,7 @@ export const findings = pgTable(
 	(table) => [
 		uniqueIndex('findings_revision_number_idx').on(table.revisionId, table.number),
 		uniqueIndex('findings_revision_rule_key_idx').on(table.revisionId, table.ruleKey),
+		index('findings_revision_rule_subject_idx').on(table.revisionId, table.ruleSubject),
 		index('findings_feature_idx').on(table.featureId),
 		index('findings_fit_idx').on(table.fitId)
 	]

@@ -9,7 +9,7 @@ import {
 	getRevision,
 	latestRevision
 } from '../db/queries/drawings';
-import { addFeature, type FeaturePlace } from '../features';
+import { importFeatures, type FeaturePlace } from '../features';
 import { addFit } from '../fits';
 import { addComment, findingThread } from '../comments';
 import { getFinding } from '../db/queries/findings';
@@ -168,11 +168,13 @@ async function seedFeatures(db: Db, team: TeamRow, drafter: UserRow) {
 					};
 				})
 			];
-			for (const [i, input] of inputs.entries()) {
-				const added = await addFeature(tx, drafter, place, featureInput.parse(input));
-				if (!added.ok) throw new Error(`Demo feature on ${demo.number}: ${added.message}`);
+			// All at once, so the rulebook judges the drawing once with every datum defined.
+			const rows = inputs.map((input, i) => ({ line: i + 1, input: featureInput.parse(input) }));
+			const added = await importFeatures(tx, drafter, place, rows, []);
+			if (!added.ok) throw new Error(`Demo features on ${demo.number}: ${added.message}`);
+			for (const [i, feature] of added.features.entries()) {
 				const fixtureId = review.features[i]?.id;
-				if (fixtureId) seeded.set(fixtureId, { id: added.feature.id, place });
+				if (fixtureId) seeded.set(fixtureId, { id: feature.id, place });
 			}
 		});
 	}

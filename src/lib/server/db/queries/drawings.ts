@@ -10,6 +10,7 @@ import {
 	type RevisionSettings
 } from '../schema';
 import { recordActivity, type Actor } from './activity';
+import { recheckRevision } from './rule-findings';
 
 export type DrawingInput = Omit<
 	typeof drawings.$inferInsert,
@@ -184,6 +185,8 @@ export async function insertRevision(
 			summary: `uploaded revision ${row.letter} of ${drawing.number} (${row.pages} sheet${row.pages === 1 ? '' : 's'})`,
 			after: publicRevision(row)
 		});
+		// The drawing's own rules read the settings it starts with.
+		await recheckRevision(tx, actor, row.id, 'full');
 		return row;
 	});
 }
@@ -276,6 +279,8 @@ export async function updateRevision(
 			before: { reason: locked.reason, settings: locked.settings },
 			after: { reason: row.reason, settings: row.settings }
 		});
+		// Every rule may read the settings: judge the whole revision again.
+		if (settings) await recheckRevision(tx, actor, row.id, 'full');
 		return { ok: true as const, revision: row };
 	});
 }

@@ -11,6 +11,7 @@ import {
 } from '../schema';
 import { chunks, recordActivity, type Actor, type ActivityEntry } from './activity';
 import { lockOpenRevision, StaleWrite, writeOnRevision } from './revision-writes';
+import { recheckRevision, type RecheckScope } from './rule-findings';
 import { visibleToSuppliers } from './drawings';
 
 export type FeatureValues = Omit<
@@ -144,8 +145,22 @@ export async function createFeatures(
 			);
 			rows.push(...written);
 		}
+		await recheckRevision(
+			tx,
+			actor,
+			revision.id,
+			rows.some((r) => r.datumFeature) ? 'full' : { featureIds: rows.map((r) => r.id) }
+		);
 		return rows;
 	});
+}
+
+/**
+ * What the rulebook re-checks after a feature changes: the feature (and so its fits), or the
+ * whole revision when a datum letter it defines came or went (GEO-04 reads every feature).
+ */
+function recheckOf(row: FeatureRow, datumChanged: boolean): RecheckScope {
+	return datumChanged ? 'full' : { featureIds: [row.id] };
 }
 
 /** Applies an edit made against `version`; a stale one throws with the current feature. */
@@ -170,6 +185,7 @@ export async function updateFeature(
 					.where(and(eq(features.id, feature.id), eq(features.version, version)))
 					.returning(),
 			stale: async (tx) => new StaleFeature(await currentFeature(tx, feature.id)),
+			recheck: (row) => recheckOf(row, feature.datumFeature !== row.datumFeature),
 			record: (row) => ({
 				action: 'update',
 				summary: `edited ${name(row)} on revision ${revision.letter} of ${drawing.number}`,
@@ -212,6 +228,7 @@ export async function deleteFeature(
 					.where(and(eq(features.id, feature.id), eq(features.version, version)))
 					.returning(),
 			stale: async (tx) => new StaleFeature(await currentFeature(tx, feature.id)),
+			recheck: (row) => recheckOf(row, !!row.datumFeature),
 			record: (row) => ({
 				action: 'delete',
 				summary: `deleted ${name(row)} from revision ${revision.letter} of ${drawing.number}`,

@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, isNotNull, isNull, sql, type SQL } from 'drizzle-orm';
+import { and, asc, eq, inArray, isNotNull, isNull, like, sql, type SQL } from 'drizzle-orm';
 import { canMove, findingName, openStates, type FindingState } from '$lib/findings';
 import type { FindingQuery } from '$lib/schemas/findings';
 import type { Db } from '../connect';
@@ -51,6 +51,9 @@ export async function listFindings(db: Db, revisionId: string, query: FindingQue
 	if (query.assigneeId === 'none') where.push(isNull(findings.assigneeId));
 	else if (query.assigneeId) where.push(eq(findings.assigneeId, query.assigneeId));
 	if (query.rule) where.push(eq(findings.rule, query.rule));
+	if (query.family) where.push(like(findings.rule, `${query.family}-%`));
+	if (query.waived)
+		where.push(query.waived === 'true' ? isNotNull(findings.waiver) : isNull(findings.waiver));
 	if (query.featureId) where.push(eq(findings.featureId, query.featureId));
 	if (query.fitId) where.push(eq(findings.fitId, query.fitId));
 	return db
@@ -251,7 +254,23 @@ export async function updateFinding(
 	return writeFinding(db, actor, drawing, revision, finding, version, {
 		set: changes,
 		action,
-		summary: (row) => `${verb} ${name(row)}`
+		summary: (row) => `${verb} ${name(row)}`,
+		// Waivers are kept in the finding's history beside its state changes.
+		also:
+			action === 'update'
+				? undefined
+				: async (tx, before, row) => {
+						const message = row.waiver
+							? `Waived: ${row.waiver.reason}`
+							: `Waiver taken back (it was: ${before.waiver?.reason ?? ''})`;
+						await tx.insert(findingMoves).values({
+							findingId: row.id,
+							from: row.state,
+							to: row.state,
+							message,
+							byId: actor.id
+						});
+					}
 	});
 }
 

@@ -12,6 +12,7 @@ import {
 } from '../schema';
 import type { Actor } from './activity';
 import { StaleWrite, writeOnRevision } from './revision-writes';
+import type { RecheckScope } from './rule-findings';
 
 export type FitValues = Omit<
 	typeof fits.$inferInsert,
@@ -86,6 +87,14 @@ export function storedFit(row: FitRow) {
 	};
 }
 
+/** What the rulebook re-checks after a fit changes: the fit and its members, before and after. */
+function recheckOf(...rows: FitRow[]): RecheckScope {
+	const featureIds = rows.flatMap((r) =>
+		[r.holeFeatureId, r.shaftFeatureId, r.fixedHoleFeatureId].filter((id): id is string => !!id)
+	);
+	return { fitIds: [rows[0].id], featureIds: [...new Set(featureIds)] };
+}
+
 const where = (revision: RevisionRow, drawing: DrawingRow) =>
 	`revision ${revision.letter} of ${drawing.number}`;
 
@@ -113,6 +122,7 @@ export async function createFit(
 						createdBy: actor.id
 					})
 					.returning(),
+			recheck: (row) => recheckOf(row),
 			record: (row) => ({
 				action: 'create',
 				summary: `added the fit ${summary} on ${where(revision, drawing)}`,
@@ -145,6 +155,7 @@ export async function updateFit(
 					.where(and(eq(fits.id, fit.id), eq(fits.version, version)))
 					.returning(),
 			stale: async (tx) => new StaleFit(await currentFit(tx, fit.id)),
+			recheck: (row) => recheckOf(row, fit),
 			record: (row) => ({
 				action: 'update',
 				summary: `edited the fit ${summary} on ${where(revision, drawing)}`,
@@ -175,6 +186,7 @@ export async function deleteFit(
 					.where(and(eq(fits.id, fit.id), eq(fits.version, version)))
 					.returning(),
 			stale: async (tx) => new StaleFit(await currentFit(tx, fit.id)),
+			recheck: (row) => recheckOf(row),
 			record: (row) => ({
 				action: 'delete',
 				summary: `deleted the fit ${summary} from ${where(revision, drawing)}`,

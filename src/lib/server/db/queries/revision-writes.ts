@@ -7,6 +7,7 @@ import { eq } from 'drizzle-orm';
 import type { Db } from '../connect';
 import { isFrozen, revisions, type DrawingRow, type RevisionRow } from '../schema';
 import { recordActivity, type ActivityEntry, type Actor } from './activity';
+import { recheckRevision, type RecheckScope } from './rule-findings';
 
 export class RevisionFrozen extends Error {
 	constructor(readonly revision: RevisionRow) {
@@ -57,11 +58,14 @@ export interface RevisionWrite<Row extends { id: string }> {
 	stale?: (tx: Db) => Promise<Error>;
 	/** What the trail records of the written row. */
 	record: (row: Row) => Pick<ActivityEntry, 'action' | 'summary' | 'before' | 'after'>;
+	/** What the rulebook re-checks after the write, in the same transaction. */
+	recheck?: (row: Row) => RecheckScope;
 }
 
 /**
  * One change to a revision's content in one transaction: lock the revision (refusing a frozen
- * one), check, write with the version check, record it on the trail. Returns the written row.
+ * one), check, write with the version check, record it on the trail, and re-check what the
+ * rulebook finds about it. Returns the written row.
  */
 export async function writeOnRevision<Row extends { id: string }>(
 	db: Db,
@@ -81,6 +85,7 @@ export async function writeOnRevision<Row extends { id: string }>(
 			drawingId: drawing.id,
 			...change.record(row)
 		});
+		if (change.recheck) await recheckRevision(tx, actor, revision.id, change.recheck(row));
 		return row;
 	});
 }

@@ -1,8 +1,20 @@
-import { and, asc, eq, isNull, sql, type SQL } from 'drizzle-orm';
+import { and, asc, eq, isNull, notInArray, sql, type SQL } from 'drizzle-orm';
 import { can } from '../../capabilities';
 import type { Db } from '../connect';
-import { invitations, memberships, teams, users, type Role } from '../schema';
+import {
+	drawings,
+	frozenStates,
+	invitations,
+	memberships,
+	revisions,
+	teams,
+	users,
+	type Role,
+	type TeamRow,
+	type TeamSettings
+} from '../schema';
 import { recordActivity, type Actor } from './activity';
+import { recheckRevision } from './rule-findings';
 
 export async function getTeamBySlug(db: Db, slug: string) {
 	const [team] = await db.select().from(teams).where(eq(teams.slug, slug));
@@ -208,17 +220,43 @@ export async function removeMember(db: Db, actor: Actor, teamId: string, userId:
 	});
 }
 
+/** What a team's settings change may carry: its name, self-approval and the rulebook's settings. */
+export type TeamSettingsChanges = { name?: string; allowSelfApproval?: boolean } & Partial<
+	Pick<TeamSettings, 'severityOverrides' | 'capabilityGrade'>
+>;
+
+const teamRecord = (row: TeamRow) => ({
+	name: row.name,
+	allowSelfApproval: row.allowSelfApproval,
+	severityOverrides: row.settings.severityOverrides ?? {},
+	capabilityGrade: row.settings.capabilityGrade ?? null
+});
+
+/**
+ * Changes the team's settings (against `version` when given: null when stale). A change to the
+ * rulebook's settings re-checks every revision of the team that is not frozen, in the same
+ * transaction, so severities and LIM-06 follow at once.
+ */
 export async function updateTeamSettings(
 	db: Db,
 	actor: Actor,
 	teamId: string,
-	input: { name?: string; allowSelfApproval?: boolean }
+	input: TeamSettingsChanges,
+	version?: number
 ) {
 	return db.transaction(async (tx) => {
-		const [before] = await tx.select().from(teams).where(eq(teams.id, teamId));
+		const [before] = await tx.select().from(teams).where(eq(teams.id, teamId)).for('update');
+		if (version !== undefined && before.version !== version) return null;
+		const { severityOverrides, capabilityGrade, ...plain } = input;
+		const rulebook = severityOverrides !== undefined || capabilityGrade !== undefined;
+		const settings = {
+			...before.settings,
+			...(severityOverrides !== undefined ? { severityOverrides } : {}),
+			...(capabilityGrade !== undefined ? { capabilityGrade } : {})
+		};
 		const [after] = await tx
 			.update(teams)
-			.set({ ...input, version: sql`${teams.version} + 1` })
+			.set({ ...plain, settings, version: sql`${teams.version} + 1` })
 			.where(eq(teams.id, teamId))
 			.returning();
 		await recordActivity(tx, {
@@ -227,10 +265,18 @@ export async function updateTeamSettings(
 			entity: 'team',
 			entityId: teamId,
 			action: 'update',
-			summary: 'changed the team settings',
-			before: { name: before.name, allowSelfApproval: before.allowSelfApproval },
-			after: { name: after.name, allowSelfApproval: after.allowSelfApproval }
+			summary: rulebook ? "changed the team's rulebook settings" : 'changed the team settings',
+			before: teamRecord(before),
+			after: teamRecord(after)
 		});
+		if (rulebook) {
+			const open = await tx
+				.select({ id: revisions.id })
+				.from(revisions)
+				.innerJoin(drawings, eq(drawings.id, revisions.drawingId))
+				.where(and(eq(drawings.teamId, teamId), notInArray(revisions.state, [...frozenStates])));
+			for (const r of open) await recheckRevision(tx, actor, r.id, 'full', false);
+		}
 		return after;
 	});
 }

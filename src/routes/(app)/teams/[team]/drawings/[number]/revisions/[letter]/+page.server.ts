@@ -15,6 +15,7 @@ import { fitsOf } from '$lib/server/fits';
 import type { FitAnswer } from '$lib/fits';
 import { requireRevision } from '$lib/server/drawings';
 import { featuresOf } from '$lib/server/features';
+import { checkSummaryOf } from '$lib/server/rulebook';
 import { fieldErrorsOf, refuseForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -23,14 +24,15 @@ export const load: PageServerLoad = async ({ params }) => {
 	const { drawing, revision, membership } = place;
 	const frozen = isFrozen(revision.state);
 	const asker = { user: place.user, role: membership.role };
-	const [uploader, features, findings, [fits, choices]] = await Promise.all([
+	const [uploader, features, findings, [fits, choices], checkSummary] = await Promise.all([
 		revision.uploadedBy ? getUserById(db, revision.uploadedBy) : null,
 		featuresOf(db, place),
 		findingsOf(db, place),
 		fitsOf(db, place).then(async (fits) => {
 			const answers = fits as FitAnswer[];
 			return [answers, await findingChoices(db, place, answers)] as const;
-		})
+		}),
+		checkSummaryOf(db, revision.id)
 	]);
 	return {
 		drawing: publicDrawing(drawing),
@@ -52,7 +54,9 @@ export const load: PageServerLoad = async ({ params }) => {
 		// The service's answer, which the integration tests check against the fitResponse schema.
 		fits,
 		/** What a new finding's fields offer. */
-		choices
+		choices,
+		checkSummary,
+		mayCheck: can(membership.role, 'judgeFindings') && !frozen
 	};
 };
 

@@ -8,7 +8,12 @@ import { isVisibleToSuppliers } from '$lib/server/db/queries/drawings';
 import { listMembers } from '$lib/server/db/queries/teams';
 import { isFrozen } from '$lib/server/db/schema';
 import { notFound, requireRevision } from '$lib/server/drawings';
-import { readCommentForm, readMoveForm, refusedForm } from '$lib/server/finding-forms';
+import {
+	readCommentForm,
+	readMoveForm,
+	readWaiverForm,
+	refusedForm
+} from '$lib/server/finding-forms';
 import { changeFinding, findingOf, movesFor } from '$lib/server/findings';
 import type { Capability } from '$lib/server/capabilities';
 import { isUuid } from '$lib/server/api-input';
@@ -51,6 +56,11 @@ export const load: PageServerLoad = async ({ params }) => {
 		members: members.map((m) => ({ userId: m.userId, name: m.name ?? m.email })),
 		userId: place.user.id,
 		moves: frozen ? [] : movesFor(asker, finding),
+		mayWaive:
+			!frozen &&
+			can(role, 'judgeFindings') &&
+			finding.kind === 'rule' &&
+			['raised', 'answered'].includes(finding.state),
 		mayComment: can(role, 'raiseFindings') || isVisibleToSuppliers(place.revision.state)
 	};
 };
@@ -63,6 +73,14 @@ export const actions: Actions = {
 		const outcome = await changeFinding(db, asker, place, finding, form.data);
 		if (!outcome.ok) return refusedForm(outcome);
 		return { moved: outcome.finding.state };
+	},
+	waive: async ({ params, request }) => {
+		const { place, finding, asker } = await requireFindingPage(params, 'view');
+		const form = await readWaiverForm(request);
+		if (!form.ok) return form.failure;
+		const outcome = await changeFinding(db, asker, place, finding, form.data);
+		if (!outcome.ok) return refusedForm(outcome);
+		return { waived: outcome.finding.waiver !== null };
 	},
 	comment: async ({ params, request }) => {
 		const { place, finding, asker } = await requireFindingPage(params, 'commentReleased');
