@@ -10,6 +10,7 @@ import {
 	type RevisionSettings
 } from '../schema';
 import { recordActivity, type Actor } from './activity';
+import { appendEvent } from './revision-events';
 
 export type DrawingInput = Omit<
 	typeof drawings.$inferInsert,
@@ -144,6 +145,11 @@ export async function getRevision(db: Db, drawingId: string, letter: string) {
 	return row ?? null;
 }
 
+export async function getRevisionById(db: Db, id: string) {
+	const [row] = await db.select().from(revisions).where(eq(revisions.id, id));
+	return row ?? null;
+}
+
 export async function latestRevision(db: Db, drawingId: string) {
 	const [row] = await db
 		.select()
@@ -275,6 +281,13 @@ export async function updateRevision(
 			summary: `changed ${what.join(' and ') || 'nothing'} of revision ${row.letter} of ${drawing.number}`,
 			before: { reason: locked.reason, settings: locked.settings },
 			after: { reason: row.reason, settings: row.settings }
+		});
+		await appendEvent(tx, {
+			revisionId: row.id,
+			type: 'revision',
+			action: 'update',
+			id: row.id,
+			version: row.version
 		});
 		return { ok: true as const, revision: row };
 	});

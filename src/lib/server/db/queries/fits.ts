@@ -103,6 +103,7 @@ export async function createFit(
 		{ actor, drawing, revision },
 		{
 			entity: 'fit',
+			listedOn: (row: FitRow) => [row.shaftRevisionId],
 			write: (tx) =>
 				tx
 					.insert(fits)
@@ -138,6 +139,7 @@ export async function updateFit(
 		{ actor, drawing, revision },
 		{
 			entity: 'fit',
+			listedOn: (row: FitRow) => [row.shaftRevisionId],
 			write: (tx) =>
 				tx
 					.update(fits)
@@ -169,6 +171,7 @@ export async function deleteFit(
 		{ actor, drawing, revision },
 		{
 			entity: 'fit',
+			listedOn: (row: FitRow) => [row.shaftRevisionId],
 			write: (tx) =>
 				tx
 					.delete(fits)

@@ -3,6 +3,7 @@ import { can } from '../../capabilities';
 import type { Db } from '../connect';
 import { invitations, memberships, teams, users, type Role } from '../schema';
 import { recordActivity, type Actor } from './activity';
+import { noticeMemberChange } from './revision-events';
 
 export async function getTeamBySlug(db: Db, slug: string) {
 	const [team] = await db.select().from(teams).where(eq(teams.slug, slug));
@@ -181,6 +182,7 @@ export async function changeRole(db: Db, actor: Actor, teamId: string, userId: s
 			after: { role }
 		});
 		if (!can(role, 'manageTeam')) await revokeInvitationsBy(tx, actor, teamId, userId);
+		await noticeMemberChange(tx, teamId, userId);
 		return updated;
 	});
 }
@@ -204,6 +206,7 @@ export async function removeMember(db: Db, actor: Actor, teamId: string, userId:
 			before: { userId, role: current.role }
 		});
 		await revokeInvitationsBy(tx, actor, teamId, userId);
+		await noticeMemberChange(tx, teamId, userId);
 		return true;
 	});
 }

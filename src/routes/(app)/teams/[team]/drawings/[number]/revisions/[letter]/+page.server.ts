@@ -6,6 +6,7 @@ import { publicDrawing, publicRevision, updateRevision } from '$lib/server/db/qu
 import { getUserById } from '$lib/server/db/queries/users';
 import { isFrozen } from '$lib/server/db/schema';
 import { listFindings } from '$lib/server/db/queries/findings';
+import { latestEventSeq } from '$lib/server/db/queries/revision-events';
 import { countFindings } from '$lib/findings';
 import { requireRevision } from '$lib/server/drawings';
 import { featuresOf } from '$lib/server/features';
@@ -17,6 +18,9 @@ export const load: PageServerLoad = async ({ params }) => {
 	const { drawing, revision, membership } = place;
 	const uploader = revision.uploadedBy ? await getUserById(db, revision.uploadedBy) : null;
 	const frozen = isFrozen(revision.state);
+	// Read first: the board's live stream starts here, so nothing written after the rest of
+	// this load is missed (an event for a change already loaded is harmless).
+	const liveAfter = await latestEventSeq(db, revision.id);
 	const findingCounts = countFindings(await listFindings(db, revision.id));
 	return {
 		drawing: publicDrawing(drawing),
@@ -31,7 +35,8 @@ export const load: PageServerLoad = async ({ params }) => {
 			editFeatures: can(membership.role, 'editFeatures') && !frozen,
 			editSettings: can(membership.role, 'author') && !frozen
 		},
-		findingCounts
+		findingCounts,
+		liveAfter
 	};
 };
 
