@@ -49,7 +49,7 @@ function reader(response: Response) {
 	let buffer = '';
 	const frames: string[] = [];
 	let ended = false;
-	let wake: (() => void) | null = null;
+	let wake = null as (() => void) | null;
 	void (async () => {
 		for (;;) {
 			const { done, value } = await body.read().catch(() => ({ done: true, value: undefined }));

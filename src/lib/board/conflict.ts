@@ -29,7 +29,9 @@ function shown(key: keyof NewFeature, value: unknown): string {
 			return value ? 'yes' : 'no';
 		case 'controls': {
 			const list = value as { characteristic: string; value: string }[];
-			return list.length === 0 ? 'none' : list.map((c) => `${c.characteristic} ${c.value}`).join(', ');
+			return list.length === 0
+				? 'none'
+				: list.map((c) => `${c.characteristic} ${c.value}`).join(', ');
 		}
 		case 'overrides': {
 			const on = Object.entries(value as Record<string, boolean>).filter(([, v]) => v);

@@ -32,6 +32,10 @@ export class FeatureBoard {
 	/** The open panel's unsaved changes (set by the panel), so a live change does not eat them. */
 	editing: { id: string; changes: Partial<NewFeature> } | null = null;
 	#placingFor: string | null = null;
+	/** Features with a save of ours under way: their answer, not an event, says what they became. */
+	#saving: string[] = [];
+	/** Others' changes that came during such a save, shown once it is answered. */
+	#deferred: Record<string, FeatureJson> = {};
 
 	constructor(
 		readonly api: FeatureApi,
@@ -182,10 +186,15 @@ export class FeatureBoard {
 
 	async save(feature: FeatureJson, changes: Partial<NewFeature>) {
 		this.notice = null;
+		this.#saving = [...this.#saving, feature.id];
 		const answer = await this.api.edit(feature.id, feature.version, changes);
+		const i = this.#saving.indexOf(feature.id);
+		this.#saving = this.#saving.filter((_, at) => at !== i);
+		const later = this.#deferred[feature.id];
+		delete this.#deferred[feature.id];
 		if (answer.ok) {
 			if (this.conflict?.id === feature.id) this.conflict = null;
-			this.#put(answer.value);
+			this.#put(later && later.version > answer.value.version ? later : answer.value);
 			this.notice = { tone: 'info', text: `Balloon ${answer.value.balloon} saved.` };
 		} else this.#refused(answer, feature.balloon, changes);
 		return answer;
@@ -231,6 +240,10 @@ export class FeatureBoard {
 	applyRemote(feature: FeatureJson) {
 		const known = this.features.find((f) => f.id === feature.id);
 		if (known && known.version >= feature.version) return;
+		if (this.#saving.includes(feature.id)) {
+			this.#deferred[feature.id] = feature;
+			return;
+		}
 		const editing = this.editing;
 		if (known && editing?.id === feature.id && Object.keys(editing.changes).length > 0) {
 			this.conflict = { id: feature.id, mine: editing.changes };

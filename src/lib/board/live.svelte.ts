@@ -29,7 +29,7 @@ export class LiveRevision {
 	/** The last sequence number received. */
 	last: number;
 	#source: EventSource | null = null;
-	#handlers = new Map<ChangeType | '*', Set<Handler>>();
+	#handlers: Partial<Record<ChangeType | '*', Handler[]>> = {};
 	#retry: ReturnType<typeof setTimeout> | undefined;
 	#stopped = false;
 
@@ -43,15 +43,16 @@ export class LiveRevision {
 
 	/** Calls `handler` for each change of `type`; returns the way to stop. */
 	on(type: ChangeType | '*', handler: Handler) {
-		let set = this.#handlers.get(type);
-		if (!set) this.#handlers.set(type, (set = new Set()));
-		set.add(handler);
-		return () => set.delete(handler);
+		this.#handlers[type] = [...(this.#handlers[type] ?? []), handler];
+		return () => {
+			this.#handlers[type] = this.#handlers[type]?.filter((h) => h !== handler);
+		};
 	}
 
 	start() {
 		this.#stopped = false;
 		addEventListener('online', this.#online);
+		addEventListener('offline', this.#offline);
 		this.#open();
 		return this;
 	}
@@ -60,9 +61,20 @@ export class LiveRevision {
 		this.#stopped = true;
 		clearTimeout(this.#retry);
 		removeEventListener('online', this.#online);
+		removeEventListener('offline', this.#offline);
 		this.#source?.close();
 		this.#source = null;
 	}
+
+	// A cut connection can stay open for minutes before anything notices: once the browser
+	// knows it is offline, drop the stream, and pick it up from the last event when it is back.
+	#offline = () => {
+		if (this.status === 'ended') return;
+		clearTimeout(this.#retry);
+		this.#source?.close();
+		this.#source = null;
+		this.status = 'reconnecting';
+	};
 
 	#online = () => {
 		if (this.#source?.readyState !== EventSource.OPEN && this.status !== 'ended') this.#open();
@@ -100,7 +112,7 @@ export class LiveRevision {
 		}
 		if (event.seq <= this.last) return;
 		this.last = event.seq;
-		for (const handler of this.#handlers.get(event.type) ?? []) handler(event);
-		for (const handler of this.#handlers.get('*') ?? []) handler(event);
+		for (const handler of this.#handlers[event.type] ?? []) handler(event);
+		for (const handler of this.#handlers['*'] ?? []) handler(event);
 	}
 }

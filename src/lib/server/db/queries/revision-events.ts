@@ -33,8 +33,7 @@ export interface RevisionEvent {
 
 /** What the channel carries: a revision's change, or a member's access changing. */
 export type LiveNotice =
-	| ({ kind: 'event' } & RevisionEvent)
-	| { kind: 'member'; teamId: string; userId: string };
+	({ kind: 'event' } & RevisionEvent) | { kind: 'member'; teamId: string; userId: string };
 
 export const eventOf = (row: RevisionEventRow): RevisionEvent => ({
 	seq: row.id,

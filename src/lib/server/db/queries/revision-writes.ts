@@ -89,7 +89,12 @@ export async function writeOnRevision<Row extends Written>(
 			drawingId: drawing.id,
 			...recorded
 		});
-		const event = { type: change.entity, action: recorded.action, id: row.id, version: row.version };
+		const event = {
+			type: change.entity,
+			action: recorded.action,
+			id: row.id,
+			version: row.version
+		};
 		await appendEvent(tx, { ...event, revisionId: revision.id });
 		for (const other of new Set(change.listedOn?.(row) ?? [])) {
 			if (other && other !== revision.id) {

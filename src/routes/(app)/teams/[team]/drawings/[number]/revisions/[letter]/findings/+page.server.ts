@@ -4,6 +4,7 @@ import { findingQuery } from '$lib/schemas/findings';
 import { can } from '$lib/server/capabilities';
 import { db } from '$lib/server/db';
 import { listFeatures } from '$lib/server/db/queries/features';
+import { latestEventSeq } from '$lib/server/db/queries/revision-events';
 import { listMembers } from '$lib/server/db/queries/teams';
 import { isFrozen } from '$lib/server/db/schema';
 import { requireRevision } from '$lib/server/drawings';
@@ -32,6 +33,8 @@ function filtersOf(url: URL) {
 export const load: PageServerLoad = async ({ params, url }) => {
 	const place = await requireRevision(params.team, params.number, params.letter, 'view');
 	const filters = filtersOf(url);
+	// Read first: the live stream starts here and misses nothing written after this load.
+	const liveAfter = await latestEventSeq(db, place.revision.id);
 	const [shown, all, members, features] = await Promise.all([
 		findingsOf(db, place, filters.query),
 		findingsOf(db, place),
@@ -52,7 +55,8 @@ export const load: PageServerLoad = async ({ params, url }) => {
 			mayAnswer: can(m.role, 'answerFindings')
 		})),
 		features: features.map((f) => ({ id: f.id, balloon: f.balloon, label: f.label })),
-		mayRaise: can(place.membership.role, 'raiseFindings') && !isFrozen(place.revision.state)
+		mayRaise: can(place.membership.role, 'raiseFindings') && !isFrozen(place.revision.state),
+		liveAfter
 	};
 };
 
