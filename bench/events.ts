@@ -159,16 +159,18 @@ try {
 	);
 	await api('POST', '/teams/kestrel/drawings/BENCH-E/revisions', form);
 	const revision = '/teams/kestrel/drawings/BENCH-E/revisions/A';
-	// One feature per write slot of a second: each is edited once a second, one edit at a time.
-	const features: { id: string; version: number }[] = [];
-	for (let i = 0; i < rate; i++) {
-		const f = await api('POST', `${revision}/features`, {
-			kind: 'bore',
-			label: `Bore ${i + 1}`,
-			callout: `Ø${6 + (i % 40)} H7`
-		});
-		features.push({ id: f.id, version: f.version });
-	}
+	// One feature per change, each edited once: no edit waits for another to the same feature.
+	const csv = ['label,kind,internal,callout,quantity'];
+	for (let i = 0; i < writes; i++) csv.push(`Bore ${i + 1},bore,,Ø${6 + (i % 40)} H7,1`);
+	const importForm = new FormData();
+	importForm.set('file', new Blob([csv.join('\n')], { type: 'text/csv' }), 'features.csv');
+	const features = (
+		(await api('POST', `${revision}/features/import`, importForm)) as {
+			id: string;
+			version: number;
+		}[]
+	).map((f) => ({ id: f.id, version: f.version }));
+	if (features.length !== writes) throw new Error(`expected ${writes} features`);
 
 	const sent = new Map<string, number>();
 	const latencies: number[] = [];
@@ -188,18 +190,18 @@ try {
 		}
 	);
 	const writeMs: number[] = [];
+	let refused = 0;
 	const elapsed = await paced(async (i) => {
-		const feature = features[i % features.length];
-		const next = feature.version + 1;
+		const feature = features[i];
 		const start = performance.now();
-		sent.set(`${feature.id}:${next}`, start);
-		const answer = await api('PATCH', `${revision}/features/${feature.id}`, {
+		sent.set(`${feature.id}:${feature.version + 1}`, start);
+		await api('PATCH', `${revision}/features/${feature.id}`, {
 			version: feature.version,
 			notes: `edit ${i}`
-		});
+		}).catch(() => refused++);
 		writeMs.push(performance.now() - start);
-		feature.version = answer.version;
 	});
+	if (refused > 0) console.log(`  ${refused} edits refused`);
 	await drained(latencies, writes * streams);
 	const peak = stopMemory();
 	close();

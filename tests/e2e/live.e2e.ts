@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { Client } from '../app/client';
 import { draftRevision } from '../app/revisions';
+import { settled } from './board-drawing';
 import { launchBrowser, screenshot, signIn } from './browser';
 
 const baseUrl = inject('baseUrl');
@@ -20,12 +21,17 @@ async function personAt(email: string) {
 
 const panel = (page: Page) => page.locator('[data-feature-panel]');
 const liveOn = (page: Page) => page.locator('[data-live="live"]').waitFor({ timeout: 15_000 });
+/** The board open with its sheet drawn and live. */
+async function openBoard(page: Page) {
+	await page.goto(`${baseUrl}${path}`);
+	await settled(page);
+	await liveOn(page);
+}
 const openCount = (page: Page) => page.locator('[data-finding-counts] a').first().textContent();
 
 /** Opens the board with the feature's panel, live. */
 async function openFeature(page: Page) {
-	await page.goto(`${baseUrl}${path}`);
-	await liveOn(page);
+	await openBoard(page);
 	await page.getByRole('list', { name: 'Placed features' }).getByRole('button').first().click();
 	await panel(page)
 		.getByRole('heading', { name: /^Balloon \d+$/ })
@@ -55,8 +61,7 @@ afterAll(async () => {
 describe('two people on one board', () => {
 	it('the checker raises a finding and the drafter sees it without reloading', async () => {
 		const { drafter, checker } = people;
-		await drafter.page.goto(`${baseUrl}${path}`);
-		await liveOn(drafter.page);
+		await openBoard(drafter.page);
 		expect(await openCount(drafter.page)).toBe('0 open');
 
 		await checker.page.goto(`${baseUrl}${path}/findings`);
@@ -149,8 +154,7 @@ describe('two people on one board', () => {
 
 	it('a board whose network was cut catches up once it is back', async () => {
 		const { drafter } = people;
-		await drafter.page.goto(`${baseUrl}${path}`);
-		await liveOn(drafter.page);
+		await openBoard(drafter.page);
 		await drafter.context.setOffline(true);
 		await drafter.page.locator('[data-live="reconnecting"]').waitFor();
 		// Meanwhile the checker raises a second finding and edits the feature.

@@ -67,8 +67,6 @@ class Stream {
 	#sent: number;
 	/** Live events that came while catching up. */
 	#held: RevisionEvent[] | null = [];
-	#heartbeat: ReturnType<typeof setInterval> | undefined;
-	#checking = false;
 	closed = false;
 
 	constructor(
@@ -98,10 +96,6 @@ class Stream {
 
 	async start() {
 		this.#write(': live\n\n');
-		this.#heartbeat = setInterval(() => {
-			this.#write(': heartbeat\n\n');
-			void this.check();
-		}, this.hub.options.heartbeatMs);
 		try {
 			for (;;) {
 				const missed = await eventsAfter(this.hub.db, this.watcher.revisionId, this.#sent, 500);
@@ -121,22 +115,10 @@ class Stream {
 	deliver(event: RevisionEvent) {
 		if (this.#held) this.#held.push(event);
 		else this.#send(event);
-		if (event.type === 'revision') void this.check();
 	}
 
-	/** Ends the stream when the member may no longer see the revision. */
-	async check() {
-		if (this.#checking || this.closed) return;
-		this.#checking = true;
-		try {
-			if (!(await mayWatch(this.hub.db, this.watcher))) {
-				this.end('event: end\ndata: {"reason":"access"}\n\n');
-			}
-		} catch {
-			// The database is unreachable for a moment: the next heartbeat asks again.
-		} finally {
-			this.#checking = false;
-		}
+	heartbeat() {
+		this.#write(': heartbeat\n\n');
 	}
 
 	/** Sends `last` (if any) and closes. */
@@ -154,7 +136,6 @@ class Stream {
 	/** Forgets the stream (the client went away, or it ended). */
 	stop() {
 		this.closed = true;
-		clearInterval(this.#heartbeat);
 		this.hub.forget(this);
 	}
 }
@@ -164,6 +145,7 @@ export class LiveHub {
 	readonly options: Required<LiveOptions>;
 	#streams = new Map<string, Set<Stream>>();
 	#unlisten: (() => Promise<void>) | null = null;
+	#heartbeat: ReturnType<typeof setInterval> | undefined;
 	#closing = false;
 
 	constructor(
@@ -193,12 +175,42 @@ export class LiveHub {
 			notice: (payload) => this.#hear(payload),
 			// Notifications sent while the listener was away are lost: every stream catches up.
 			resumed: () => {
-				for (const set of this.#streams.values()) {
-					for (const stream of set) stream.end(`retry: ${this.options.retryMs}\n\n`);
-				}
+				for (const stream of this.#all()) stream.end(`retry: ${this.options.retryMs}\n\n`);
 			}
 		});
+		// One heartbeat for every stream, and one access check per member and revision watched.
+		this.#heartbeat ??= setInterval(() => {
+			const all = this.#all();
+			for (const stream of all) stream.heartbeat();
+			void this.#recheck(all);
+		}, this.options.heartbeatMs);
+		this.#heartbeat.unref?.();
 		return this;
+	}
+
+	#all() {
+		return [...this.#streams.values()].flatMap((set) => [...set]);
+	}
+
+	/** Ends the streams whose member may no longer see their revision (asked once per watcher). */
+	async #recheck(streams: Stream[]) {
+		const byWatcher = new Map<string, Stream[]>();
+		for (const s of streams) {
+			if (s.closed) continue;
+			const key = `${s.watcher.teamId} ${s.watcher.userId} ${s.watcher.revisionId}`;
+			byWatcher.set(key, [...(byWatcher.get(key) ?? []), s]);
+		}
+		await Promise.all(
+			[...byWatcher.values()].map(async (group) => {
+				try {
+					if (await mayWatch(this.db, group[0].watcher)) return;
+				} catch {
+					// The database is unreachable for a moment: the next heartbeat asks again.
+					return;
+				}
+				for (const stream of group) stream.end('event: end\ndata: {"reason":"access"}\n\n');
+			})
+		);
 	}
 
 	#hear(payload: string) {
@@ -209,14 +221,15 @@ export class LiveHub {
 			return;
 		}
 		if (notice.kind === 'event') {
-			for (const stream of this.#streams.get(notice.revisionId) ?? []) stream.deliver(notice);
+			const streams = [...(this.#streams.get(notice.revisionId) ?? [])];
+			for (const stream of streams) stream.deliver(notice);
+			// A revision's state decides whether supplier quality may still see it.
+			if (notice.type === 'revision') void this.#recheck(streams);
 		} else if (notice.kind === 'member') {
-			for (const set of this.#streams.values()) {
-				for (const stream of set) {
-					const w = stream.watcher;
-					if (w.teamId === notice.teamId && w.userId === notice.userId) void stream.check();
-				}
-			}
+			const w = notice;
+			void this.#recheck(
+				this.#all().filter((s) => s.watcher.teamId === w.teamId && s.watcher.userId === w.userId)
+			);
 		}
 	}
 
@@ -238,6 +251,8 @@ export class LiveHub {
 					if (!set) this.#streams.set(watcher.revisionId, (set = new Set()));
 					set.add(stream);
 					void stream.start();
+					// Access was checked by the route; a stream opened on a revision it cannot see
+					// (a direct caller) ends at the next heartbeat.
 				},
 				cancel: () => stream?.stop()
 			},
@@ -263,9 +278,8 @@ export class LiveHub {
 	/** Ends every stream with a `retry:` hint (the clients come back, to this or another instance). */
 	endAll() {
 		this.#closing = true;
-		for (const set of [...this.#streams.values()]) {
-			for (const stream of [...set]) stream.end(`retry: ${this.options.retryMs}\n\n`);
-		}
+		clearInterval(this.#heartbeat);
+		for (const stream of this.#all()) stream.end(`retry: ${this.options.retryMs}\n\n`);
 	}
 
 	async stop() {
