@@ -10,7 +10,7 @@ import {
 	type RevisionRow
 } from '../schema';
 import { recordActivity, type Actor } from './activity';
-import { appendEvent } from './revision-events';
+import { appendEvents } from './revision-events';
 import { lockOpenRevision, StaleWrite, writeOnRevision } from './revision-writes';
 import { visibleToSuppliers } from './drawings';
 
@@ -133,15 +133,13 @@ export async function createFeatures(
 				summary: `added ${name(row)} ${row.callout} on revision ${revision.letter} of ${drawing.number}`,
 				after: storedFeature(row)
 			});
-			await appendEvent(tx, {
-				revisionId: revision.id,
-				type: 'feature',
-				action: 'create',
-				id: row.id,
-				version: row.version
-			});
 			rows.push(row);
 		}
+		await appendEvents(
+			tx,
+			revision.id,
+			rows.map((row) => ({ type: 'feature', action: 'create', id: row.id, version: row.version }))
+		);
 		return rows;
 	});
 }

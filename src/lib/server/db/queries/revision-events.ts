@@ -45,10 +45,6 @@ export const eventOf = (row: RevisionEventRow): RevisionEvent => ({
 	...(row.subject ? { subject: row.subject } : {})
 });
 
-async function notify(tx: Db, notice: LiveNotice) {
-	await tx.execute(sql`select pg_notify(${liveChannel}, ${JSON.stringify(notice)})`);
-}
-
 export interface NewRevisionEvent {
 	revisionId: string;
 	type: RevisionEventType;
@@ -66,31 +62,50 @@ export interface NewRevisionEvent {
 
 /** Records a change in the transaction `tx`; listeners hear of it once `tx` commits. */
 export async function appendEvent(tx: Db, event: NewRevisionEvent) {
-	if (event.lock !== false) {
+	const [row] = await appendEvents(tx, event.revisionId, [event], { lock: event.lock });
+	return row;
+}
+
+/** Several changes of one revision (an import), in one statement and one notification each. */
+export async function appendEvents(
+	tx: Db,
+	revisionId: string,
+	events: Omit<NewRevisionEvent, 'revisionId' | 'lock'>[],
+	options: { lock?: boolean } = {}
+) {
+	if (events.length === 0) return [];
+	if (options.lock !== false) {
 		await tx
 			.select({ id: revisions.id })
 			.from(revisions)
-			.where(eq(revisions.id, event.revisionId))
+			.where(eq(revisions.id, revisionId))
 			.for('update');
 	}
-	const [row] = await tx
+	const rows = await tx
 		.insert(revisionEvents)
-		.values({
-			revisionId: event.revisionId,
-			type: event.type,
-			action: event.action,
-			entityId: event.id,
-			version: event.version ?? null,
-			subject: event.subject ?? null
-		})
+		.values(
+			events.map((event) => ({
+				revisionId,
+				type: event.type,
+				action: event.action,
+				entityId: event.id,
+				version: event.version ?? null,
+				subject: event.subject ?? null
+			}))
+		)
 		.returning();
-	await notify(tx, { kind: 'event', ...eventOf(row) });
-	return row;
+	rows.sort((a, b) => a.id - b.id);
+	const notices: LiveNotice[] = rows.map((row) => ({ kind: 'event', ...eventOf(row) }));
+	await tx.execute(
+		sql`select pg_notify(${liveChannel}, notice::text) from jsonb_array_elements(${JSON.stringify(notices)}::jsonb) as notice`
+	);
+	return rows;
 }
 
 /** Tells every instance that a member's access to a team changed (role, removal). */
 export async function noticeMemberChange(tx: Db, teamId: string, userId: string) {
-	await notify(tx, { kind: 'member', teamId, userId });
+	const notice: LiveNotice = { kind: 'member', teamId, userId };
+	await tx.execute(sql`select pg_notify(${liveChannel}, ${JSON.stringify(notice)})`);
 }
 
 /** The revision's changes after sequence number `after`, oldest first, at most `limit`. */
