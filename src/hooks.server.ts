@@ -124,6 +124,32 @@ const sameOrigin: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
+const loopbackHosts = /^(localhost|127(?:\.\d{1,3}){3}|\[::1\])(?::\d+)?$/i;
+
+/**
+ * A page opened through another loopback name than the public origin (ORIGIN) — 127.0.0.1
+ * when `npm start` printed localhost — would sign in and then lose its session cookie on the
+ * way back, silently showing the sign-in page again. Such a page view is sent to the same path
+ * on the public origin instead. Only loopback names: a proxy's own host names are left alone.
+ */
+const publicOrigin: Handle = async ({ event, resolve }) => {
+	const { request, url } = event;
+	const host = request.headers.get('host') ?? '';
+	if (
+		(request.method === 'GET' || request.method === 'HEAD') &&
+		host !== url.host &&
+		loopbackHosts.test(host) &&
+		loopbackHosts.test(url.host) &&
+		request.headers.get('accept')?.includes('text/html')
+	) {
+		return new Response(null, {
+			status: 307,
+			headers: { location: `${url.origin}${url.pathname}${url.search}` }
+		});
+	}
+	return resolve(event);
+};
+
 /** A 429 with the wait in Retry-After, as JSON or text after what the client asked for. */
 function tooManyRequests(request: Request, retryAfter: number) {
 	const message = `Too many attempts: try again in ${retryAfter} s`;
@@ -169,6 +195,7 @@ const currentUser: Handle = async ({ event, resolve }) => {
 
 export const handle = sequence(
 	securityHeaders,
+	publicOrigin,
 	apiErrors,
 	bodyLimit,
 	sameOrigin,

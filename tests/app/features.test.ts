@@ -167,4 +167,42 @@ describe('revision settings', () => {
 			version: revision.version + 1
 		});
 	});
+
+	it("are edited on the board's settings form by an author only, checked and version-guarded", async () => {
+		const { path } = await draftRevision(clients.drafter, 'kestrel');
+		const revision = await (await clients.drafter.api('GET', path)).json();
+		const form = {
+			version: String(revision.version),
+			units: 'mm',
+			standard: 'asme-y14.5-2018',
+			gtKind: 'iso2768',
+			gtLinear: 'f'
+		};
+		// PRODUCT.md §2: the settings are the author's (admin, drafter); a checker may not.
+		expect(await clients.checker.submit(`${path}?/settings`, form)).toMatchObject({
+			type: 'error',
+			error: { code: 'forbidden' }
+		});
+		expect(
+			await clients.drafter.submit(`${path}?/settings`, { ...form, standard: 'no-such' })
+		).toMatchObject({ type: 'failure', status: 400 });
+		expect((await (await clients.drafter.api('GET', path)).json()).version).toBe(revision.version);
+
+		expect(await clients.drafter.submit(`${path}?/settings`, form)).toMatchObject({
+			type: 'success'
+		});
+		const saved = await (await clients.drafter.api('GET', path)).json();
+		expect(saved.settings).toEqual({
+			units: 'mm',
+			standard: 'asme-y14.5-2018',
+			generalTolerance: { kind: 'iso2768', linear: 'f', envelope: false }
+		});
+		// The same form again, its version now old: refused, the saved settings kept.
+		expect(
+			await clients.admin.submit(`${path}?/settings`, { ...form, standard: 'iso-8015' })
+		).toMatchObject({ type: 'failure', status: 409 });
+		expect((await (await clients.drafter.api('GET', path)).json()).settings.standard).toBe(
+			'asme-y14.5-2018'
+		);
+	});
 });

@@ -118,6 +118,12 @@ const table: Row[] = [
 		null,
 		expected(401, 404, 403, 403, 403, 404, 404, 401)
 	],
+	[
+		'POST',
+		() => `/teams/kestrel/invitations/${nobody}/approval`,
+		null,
+		expected(401, 404, 403, 403, 403, 404, 404, 401)
+	],
 	['GET', () => '/teams/kestrel/activity', null, expected(401, 200, 200, 200, 403, 404, 200, 401)],
 	['GET', () => '/teams/nowhere/activity', null, expected(401, 404, 404, 404, 404, 404, 404, 401)],
 	['GET', () => '/me/tokens', null, expected(401, 200, 200, 200, 200, 200, 200, 401)],
@@ -247,10 +253,33 @@ describe('team rules', () => {
 			type: 'success'
 		});
 		expect((await other.api('GET', '/teams/kestrel/members')).status).toBe(200);
+		// Approved once: the API finds nobody waiting any more.
+		const twice = await clients.admin.api('POST', `/teams/kestrel/invitations/${id}/approval`);
+		expect(twice.status).toBe(404);
 		// Used: the link itself no longer lets anyone in.
 		expect(
 			await new Client().submit(`${link}?/join`, { name: 'Late', password: 'a long enough phrase' })
 		).toMatchObject({ status: 410 });
+	});
+
+	it('an admin approves a waiting account through the API; others may not', async () => {
+		const invitedAddress = `api-approval-${unique()}@example.test`;
+		const invited = await clients.admin.api('POST', '/teams/kestrel/members', {
+			email: invitedAddress,
+			role: 'checker'
+		});
+		const { id } = await invited.json();
+		const link = linkIn(await waitForMail(invitedAddress, /invited you to/), '/invitations/');
+		const path = `/teams/kestrel/invitations/${id}/approval`;
+		// Nobody is waiting yet.
+		expect((await clients.admin.api('POST', path)).status).toBe(404);
+		const other = new Client();
+		await newVerifiedUser(other, 'Waiting Person');
+		expect(await other.submit(`${link}?/accept`, {})).toMatchObject({ type: 'success' });
+		expect((await clients.checker.api('POST', path)).status).toBe(403);
+		expect((await clients.admin.api('POST', path)).status).toBe(204);
+		const teams = await (await other.api('GET', '/teams')).json();
+		expect(teams).toEqual([expect.objectContaining({ slug: 'kestrel', role: 'checker' })]);
 	});
 
 	it('keeps cross-site protection for cookie sessions, not for Bearer clients', async () => {

@@ -2,25 +2,7 @@ import { z } from 'zod';
 import { geometricControl } from './calc';
 import { revisionSettings } from './drawings';
 import { featureKinds } from '$lib/features';
-
-const unit = z.number().min(0, { error: 'Use 0..1 of the page' }).max(1, {
-	error: 'Use 0..1 of the page'
-});
-
-/** A marker on a sheet (PRODUCT.md §3): `sheet` 1-based, `x`, `y`, `w`, `h` in 0..1. */
-export const markerLocation = z
-	.object({
-		sheet: z.number().int().min(1, { error: 'Sheets count from 1' }),
-		x: unit,
-		y: unit,
-		w: unit.optional(),
-		h: unit.optional()
-	})
-	.strict()
-	.refine((l) => (l.w === undefined) === (l.h === undefined), {
-		error: 'An area marker gives both w and h',
-		path: ['w']
-	});
+import { markerLocation } from './location';
 
 /** Datum feature letters: A, B, C … (two letters past Z). */
 export const datumLetter = z

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { findingKinds, findingStates, severities } from '$lib/findings';
-import { markerLocation } from './features';
+import { markerLocation } from './location';
 
 const findingText = z
 	.string({ error: 'Say what is wrong' })

@@ -25,6 +25,11 @@ export const invitationResponse = z.object({
 	role,
 	expiresAt: z.iso.datetime()
 });
+/** An open invitation as listed: `waitingFor` is an account of another address asking to accept it. */
+export const openInvitation = invitationResponse.extend({
+	createdAt: z.iso.datetime(),
+	waitingFor: z.object({ userId: z.uuid(), email: z.string() }).nullable()
+});
 export const roleInput = z.object({ role });
 
 export const teamSettingsInput = z.object({

@@ -25,6 +25,7 @@ import {
 	apiTokenInput,
 	invitationResponse,
 	memberInput,
+	openInvitation,
 	roleInput,
 	teamInput
 } from '$lib/schemas/teams';
@@ -84,7 +85,12 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 		delete: { summary: 'Remove a member (never the last admin)', success: 204 }
 	},
 	'/teams/{team}/invitations': {
-		get: { summary: 'Open invitations', success: 200 },
+		get: {
+			summary:
+				'Open invitations; `waitingFor` names an account of another address that asked to accept one (approve it with POST …/approval)',
+			response: z.array(openInvitation),
+			success: 200
+		},
 		post: {
 			summary: 'Invite by e-mail (as POST …/members, answered 201)',
 			body: memberInput,
@@ -93,6 +99,13 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 		}
 	},
 	'/teams/{team}/invitations/{id}': { delete: { summary: 'Withdraw an invitation', success: 204 } },
+	'/teams/{team}/invitations/{id}/approval': {
+		post: {
+			summary:
+				'Let the account waiting on an open invitation (`waitingFor`) join with the invited role; 404 when none is waiting',
+			success: 204
+		}
+	},
 	'/teams/{team}/activity': {
 		get: {
 			summary: 'The append-only activity trail, newest first',

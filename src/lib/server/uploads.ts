@@ -69,16 +69,17 @@ function drained(stream: Writable) {
 }
 
 /**
- * Copies the uploaded file to `path`, hashing and counting, and, given `store`, into storage at
- * the same time. Settles only when both transfers have: on any failure the storage upload is
- * stopped (the multipart upload aborted) before this rejects.
+ * Copies the uploaded file to `path` and, given `store`, into storage at the same time, hashing
+ * and counting once: storage tallies what it is sent, so only a copy without storage tallies
+ * here. Settles only when both transfers have: on any failure the storage upload is stopped
+ * (the multipart upload aborted) before this rejects.
  */
 async function copyFile(
 	source: Readable,
 	path: string,
 	store?: { storage: Storage; key: string }
 ): Promise<Copied> {
-	const tally = new ByteTally();
+	const tally = store ? null : new ByteTally();
 	const toStorage = store ? new PassThrough() : null;
 	const storing =
 		store && toStorage ? store.storage.put(store.key, toStorage, 'application/pdf') : null;
@@ -89,7 +90,7 @@ async function copyFile(
 			source,
 			async function* (chunks: AsyncIterable<Buffer>) {
 				for await (const chunk of chunks) {
-					tally.add(chunk);
+					tally?.add(chunk);
 					if (toStorage) {
 						if (toStorage.destroyed) throw toStorage.errored ?? new Error('Storage upload stopped');
 						if (!toStorage.write(chunk)) await drained(toStorage);
@@ -100,11 +101,9 @@ async function copyFile(
 			createWriteStream(path)
 		);
 		toStorage?.end();
-		return {
-			size: tally.size,
-			sha256: tally.sha256(),
-			stored: storing ? await storing : undefined
-		};
+		if (tally) return { size: tally.size, sha256: tally.sha256() };
+		const stored = await (storing as Promise<StoredObject>);
+		return { size: stored.size, sha256: stored.sha256, stored };
 	} catch (err) {
 		toStorage?.destroy(err as Error);
 		await storing?.catch(() => {});

@@ -15,6 +15,7 @@ import {
 	uuid
 } from 'drizzle-orm/pg-core';
 import { UNITS, type Units } from '../../tolerance/decimal';
+import type { MarkerLocation } from '../../schemas/location';
 import {
 	GOVERNING_STANDARDS,
 	type GeneralTolerance,
@@ -312,15 +313,6 @@ export interface FeatureOverridesSetting {
 	independency: boolean;
 	stock: boolean;
 	freeState: boolean;
-}
-
-/** A marker: sheet 1-based, x and y in 0..1 of the page as displayed; an area adds w and h. */
-export interface MarkerLocation {
-	sheet: number;
-	x: number;
-	y: number;
-	w?: number;
-	h?: number;
 }
 
 /**

@@ -136,9 +136,10 @@ async function seedFeatures(db: Db, team: TeamRow, drafter: UserRow) {
 			const revision = await getRevision(tx, drawing.id, 'A');
 			if (!revision || drawing.nextBalloon !== 1) return;
 			const place = { team, drawing, revision };
+			// A balloon sits just right of its callout, as a checker places one, not on the text.
 			const at = (kind: string, text: string) => {
 				const c = demo.callouts.find((c) => c.kind === kind && c.text === text);
-				return c ? { sheet: c.sheet, x: c.x, y: c.y } : null;
+				return c ? { sheet: c.sheet, x: Math.min(1, c.x + c.w / 2 + 0.014), y: c.y } : null;
 			};
 			const defined = new Set(review.features.map((f) => f.datumFeature).filter(Boolean));
 			const faces = (review.drawing.datums ?? []).filter((letter) => !defined.has(letter));
@@ -213,13 +214,14 @@ async function seedFits(
 	}
 }
 
-/** Where a demo finding points: at its callout, or an area starting near it. */
+/** Where a demo finding points: beside its callout, or an area starting near it. */
 function demoLocation(finding: DemoFinding) {
 	const demo = demoDrawings.find((d) => d.number === finding.drawing);
 	const c = demo?.callouts.find((c) => c.kind === finding.at.kind && c.text === finding.at.text);
 	if (!c) return null;
 	const { area } = finding.at;
-	if (!area) return { sheet: c.sheet, x: c.x, y: c.y };
+	// A point finding sits just left of its callout (the feature's balloon is on the right).
+	if (!area) return { sheet: c.sheet, x: Math.max(0, c.x - c.w / 2 - 0.014), y: c.y };
 	const x = Math.max(0, c.x - 0.02);
 	const y = Math.max(0, c.y - area.h / 2);
 	return { sheet: c.sheet, x, y, w: Math.min(area.w, 1 - x), h: Math.min(area.h, 1 - y) };

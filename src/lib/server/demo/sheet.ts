@@ -31,6 +31,8 @@ export interface DemoCallout {
 	x: number;
 	/** 0..1 from the top of the page. */
 	y: number;
+	/** The text's width, 0..1 of the page's width (so a balloon can sit beside it). */
+	w: number;
 	kind: CalloutKind;
 	/** What the callout belongs to, in the words a checker would use. */
 	label: string;
@@ -285,6 +287,7 @@ export class Sheet {
 			sheet: this.sheetNumber,
 			x: round4(at[0] / this.width),
 			y: round4(at[1] / this.height),
+			w: round4(this.textWidth(text) / this.width),
 			kind,
 			label
 		});

@@ -17,20 +17,35 @@ export interface ActivityEntry {
 	drawingId?: string | null;
 }
 
-/** The one way anything is written to the trail; call it inside the change's transaction. */
-export async function recordActivity(db: Db, entry: ActivityEntry) {
-	await db.insert(activity).values({
-		teamId: entry.teamId,
-		actorId: entry.actor?.id ?? null,
-		actorName: entry.actor ? (entry.actor.name ?? entry.actor.email ?? null) : null,
-		entity: entry.entity,
-		entityId: entry.entityId,
-		action: entry.action,
-		summary: entry.summary,
-		before: entry.before ?? null,
-		after: entry.after ?? null,
-		drawingId: entry.drawingId ?? null
-	});
+/**
+ * The one way anything is written to the trail; call it inside the change's transaction. A list
+ * of entries (a bulk change: an import) goes in with as few statements as it takes.
+ */
+export async function recordActivity(db: Db, entry: ActivityEntry | ActivityEntry[]) {
+	const entries = Array.isArray(entry) ? entry : [entry];
+	for (const chunk of chunks(entries, 1000)) {
+		await db.insert(activity).values(
+			chunk.map((e) => ({
+				teamId: e.teamId,
+				actorId: e.actor?.id ?? null,
+				actorName: e.actor ? (e.actor.name ?? e.actor.email ?? null) : null,
+				entity: e.entity,
+				entityId: e.entityId,
+				action: e.action,
+				summary: e.summary,
+				before: e.before ?? null,
+				after: e.after ?? null,
+				drawingId: e.drawingId ?? null
+			}))
+		);
+	}
+}
+
+/** `list` cut into runs of at most `size` (a statement's parameters are limited). */
+export function chunks<T>(list: T[], size: number): T[][] {
+	const runs: T[][] = [];
+	for (let i = 0; i < list.length; i += size) runs.push(list.slice(i, i + size));
+	return runs;
 }
 
 export async function listTeamActivity(

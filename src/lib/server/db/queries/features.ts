@@ -9,7 +9,7 @@ import {
 	type FeatureRow,
 	type RevisionRow
 } from '../schema';
-import { recordActivity, type Actor } from './activity';
+import { chunks, recordActivity, type Actor, type ActivityEntry } from './activity';
 import { appendEvents } from './revision-events';
 import { lockOpenRevision, StaleWrite, writeOnRevision } from './revision-writes';
 import { visibleToSuppliers } from './drawings';
@@ -112,28 +112,38 @@ export async function createFeatures(
 			.returning({ next: drawings.nextBalloon });
 		const first = counter.next - list.length;
 		const rows: FeatureRow[] = [];
-		for (const [i, values] of list.entries()) {
-			const [row] = await tx
+		// In runs, not a statement per feature: an import of thousands stays quick.
+		for (const run of chunks(
+			list.map((values, i) => ({ values, balloon: first + i })),
+			400
+		)) {
+			const written = await tx
 				.insert(features)
-				.values({
-					...values,
-					revisionId: revision.id,
-					drawingId: drawing.id,
-					balloon: first + i,
-					createdBy: actor.id
-				})
+				.values(
+					run.map(({ values, balloon }) => ({
+						...values,
+						revisionId: revision.id,
+						drawingId: drawing.id,
+						balloon,
+						createdBy: actor.id
+					}))
+				)
 				.returning();
-			await recordActivity(tx, {
-				teamId: drawing.teamId,
-				actor,
-				entity: 'feature',
-				entityId: row.id,
-				drawingId: drawing.id,
-				action: 'create',
-				summary: `added ${name(row)} ${row.callout} on revision ${revision.letter} of ${drawing.number}`,
-				after: storedFeature(row)
-			});
-			rows.push(row);
+			written.sort((a, b) => a.balloon - b.balloon);
+			await recordActivity(
+				tx,
+				written.map((row): ActivityEntry => ({
+					teamId: drawing.teamId,
+					actor,
+					entity: 'feature',
+					entityId: row.id,
+					drawingId: drawing.id,
+					action: 'create',
+					summary: `added ${name(row)} ${row.callout} on revision ${revision.letter} of ${drawing.number}`,
+					after: storedFeature(row)
+				}))
+			);
+			rows.push(...written);
 		}
 		await appendEvents(
 			tx,

@@ -7,6 +7,7 @@
  */
 import { and, asc, desc, eq, gt, sql } from 'drizzle-orm';
 import type { Db } from '../connect';
+import { chunks } from './activity';
 import {
 	revisionEvents,
 	revisions,
@@ -81,19 +82,24 @@ export async function appendEvents(
 			.where(eq(revisions.id, revisionId))
 			.for('update');
 	}
-	const rows = await tx
-		.insert(revisionEvents)
-		.values(
-			events.map((event) => ({
-				revisionId,
-				type: event.type,
-				action: event.action,
-				entityId: event.id,
-				version: event.version ?? null,
-				subject: event.subject ?? null
-			}))
-		)
-		.returning();
+	const rows: RevisionEventRow[] = [];
+	// In runs: a statement's parameters are limited (an import of thousands).
+	for (const run of chunks(events, 1000)) {
+		const written = await tx
+			.insert(revisionEvents)
+			.values(
+				run.map((event) => ({
+					revisionId,
+					type: event.type,
+					action: event.action,
+					entityId: event.id,
+					version: event.version ?? null,
+					subject: event.subject ?? null
+				}))
+			)
+			.returning();
+		rows.push(...written);
+	}
 	rows.sort((a, b) => a.id - b.id);
 	const notices: LiveNotice[] = rows.map((row) => ({ kind: 'event', ...eventOf(row) }));
 	await tx.execute(
