@@ -1,6 +1,8 @@
 // Live events under load, against the built app: 200 open event streams on one revision while
-// 50 feature edits a second go in for 10 s. Delivery latency is from an edit's request leaving
-// to its `change` event arriving on each stream; the app's memory is sampled throughout. The
+// 50 changes a second go in for 10 s (comments on the threads of the revision's features: a
+// change whose own write is cheap, so the figure is the events' path, not the feature service's
+// per-answer rulebook run). Delivery latency is from a change's request leaving to its `change`
+// event arriving on each stream; the app's memory is sampled throughout. The
 // yardstick, in the same run: a bare node:http server holding the same 200 streams, told over
 // HTTP at the same rate to write one frame to all of them (no database, no access checks).
 // Run with `npm run bench:events` after `npm run build`. Prints figures, then one line of JSON.
@@ -159,52 +161,55 @@ try {
 	);
 	await api('POST', '/teams/kestrel/drawings/BENCH-E/revisions', form);
 	const revision = '/teams/kestrel/drawings/BENCH-E/revisions/A';
-	// One feature per change, each edited once: no edit waits for another to the same feature.
-	const csv = ['label,kind,internal,callout,quantity'];
-	for (let i = 0; i < writes; i++) csv.push(`Bore ${i + 1},bore,,Ø${6 + (i % 40)} H7,1`);
-	const importForm = new FormData();
-	importForm.set('file', new Blob([csv.join('\n')], { type: 'text/csv' }), 'features.csv');
-	const features = (
-		(await api('POST', `${revision}/features/import`, importForm)) as {
-			id: string;
-			version: number;
-		}[]
-	).map((f) => ({ id: f.id, version: f.version }));
-	if (features.length !== writes) throw new Error(`expected ${writes} features`);
+	// A few features whose threads take the comments.
+	const features: { id: string }[] = [];
+	for (let i = 0; i < 10; i++) {
+		features.push(
+			await api('POST', `${revision}/features`, {
+				kind: 'bore',
+				label: `Bore ${i + 1}`,
+				callout: `Ø${6 + i} H7`
+			})
+		);
+	}
 
-	const sent = new Map<string, number>();
-	const latencies: number[] = [];
+	// Each stream's arrival times by the changed item's id; joined with the send times after.
+	const received = new Map<string, number[]>();
+	let frames = 0;
 	const baseline = rssBytes(appPid);
 	const stopMemory = sampleMemory(appPid);
 	const close = await openStreams(
 		streams,
 		`${baseUrl}/api/v1${revision}/events`,
 		auth,
-		(data) => {
-			const d = JSON.parse(data) as { id: string; version: number };
-			return `${d.id}:${d.version}`;
-		},
+		(data) => (JSON.parse(data) as { id: string }).id,
 		(key, at) => {
-			const from = sent.get(key);
-			if (from !== undefined) latencies.push(at - from);
+			frames++;
+			received.set(key, [...(received.get(key) ?? []), at]);
 		}
 	);
 	const writeMs: number[] = [];
+	const sent: { id: string; at: number }[] = [];
 	let refused = 0;
 	const elapsed = await paced(async (i) => {
-		const feature = features[i];
+		const feature = features[i % features.length];
 		const start = performance.now();
-		sent.set(`${feature.id}:${feature.version + 1}`, start);
-		await api('PATCH', `${revision}/features/${feature.id}`, {
-			version: feature.version,
-			notes: `edit ${i}`
-		}).catch(() => refused++);
+		try {
+			const comment = await api('POST', `${revision}/features/${feature.id}/comments`, {
+				body: `Change ${i}: check the chamfer.`
+			});
+			sent.push({ id: comment.id, at: start });
+		} catch {
+			refused++;
+		}
 		writeMs.push(performance.now() - start);
 	});
-	if (refused > 0) console.log(`  ${refused} edits refused`);
-	await drained(latencies, writes * streams);
+	if (refused > 0) console.log(`  ${refused} changes refused`);
+	for (const deadline = Date.now() + 10_000; frames < writes * streams && Date.now() < deadline;)
+		await sleep(50);
 	const peak = stopMemory();
 	close();
+	const latencies = sent.flatMap(({ id, at }) => (received.get(id) ?? []).map((t) => t - at));
 	app = { latencies, expected: writes * streams, writeMs, baseline, peak, elapsed };
 
 	// ---- The yardstick: bare node:http, the same streams and rate, no database.
