@@ -1,7 +1,7 @@
 /*
  * A feature edit that someone else's change overtook: what the person typed, kept aside beside
  * the feature as it stands now, and the draft that puts their values back on top of it. Pure:
- * tested in tests/unit/feature-conflict.test.ts.
+ * tested in tests/unit/feature-form.test.ts.
  */
 import type { FeatureJson, NewFeature } from '$lib/features';
 import { draftOf, type FeatureDraft } from './feature-form';
