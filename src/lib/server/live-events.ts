@@ -39,6 +39,7 @@ export interface LiveOptions {
 }
 
 const encoder = new TextEncoder();
+const heartbeatFrame = encoder.encode(': heartbeat\n\n');
 
 /** An SSE `change` frame: the sequence number as its `id:`, `{type, action, id, version}` as data. */
 export function changeFrame(event: RevisionEvent) {
@@ -79,19 +80,20 @@ class Stream {
 		this.#sent = after;
 	}
 
-	#write(text: string) {
+	#write(chunk: string | Uint8Array) {
 		if (this.closed) return;
-		this.#controller.enqueue(encoder.encode(text));
+		this.#controller.enqueue(typeof chunk === 'string' ? encoder.encode(chunk) : chunk);
 		if ((this.#controller.desiredSize ?? 0) < -this.hub.options.maxQueuedBytes) {
 			// A client that reads nothing must not hold our memory: it reconnects and catches up.
 			this.end(`retry: ${this.hub.options.retryMs}\n\n`);
 		}
 	}
 
-	#send(event: RevisionEvent) {
+	/** `frame`: the event's frame, encoded once for every stream it goes to. */
+	#send(event: RevisionEvent, frame?: Uint8Array) {
 		if (event.seq <= this.#sent) return;
 		this.#sent = event.seq;
-		this.#write(changeFrame(event));
+		this.#write(frame ?? changeFrame(event));
 	}
 
 	async start() {
@@ -112,13 +114,13 @@ class Stream {
 		for (const event of held) this.#send(event);
 	}
 
-	deliver(event: RevisionEvent) {
+	deliver(event: RevisionEvent, frame: Uint8Array) {
 		if (this.#held) this.#held.push(event);
-		else this.#send(event);
+		else this.#send(event, frame);
 	}
 
 	heartbeat() {
-		this.#write(': heartbeat\n\n');
+		this.#write(heartbeatFrame);
 	}
 
 	/** Sends `last` (if any) and closes. */
@@ -222,7 +224,8 @@ export class LiveHub {
 		}
 		if (notice.kind === 'event') {
 			const streams = [...(this.#streams.get(notice.revisionId) ?? [])];
-			for (const stream of streams) stream.deliver(notice);
+			const frame = encoder.encode(changeFrame(notice));
+			for (const stream of streams) stream.deliver(notice, frame);
 			// A revision's state decides whether supplier quality may still see it.
 			if (notice.type === 'revision') void this.#recheck(streams);
 		} else if (notice.kind === 'member') {
