@@ -11,6 +11,7 @@ import {
 	type CurrentUser
 } from '$lib/server/auth';
 import { bodyLimit } from '$lib/server/body-limit';
+import { startLive } from '$lib/server/live-events';
 import { config } from '$lib/server/config';
 import { db, startDatabase } from '$lib/server/db';
 import { userForApiToken } from '$lib/server/db/queries/api-tokens';
@@ -52,6 +53,7 @@ export const init: ServerInit = async () => {
 		);
 	}
 	startOutboxWorker();
+	await startLive(database);
 	await preparePdfCheck(config.pdfLimits);
 };
 

@@ -181,6 +181,35 @@ describe.skipIf(!postgresBin)('two app instances on one PostgreSQL server', () =
 		expect((await me.json()).email).toBe('drafter@example.test');
 	});
 
+	it("delivers on one instance's board stream the changes made through the other", async () => {
+		const drafter = new Browser();
+		await drafter.signIn(one, 'drafter@example.test');
+		const revision = '/teams/kestrel/drawings/KF-2001/revisions/A';
+		const stream = await drafter.api(two, 'GET', `${revision}/events`);
+		expect(stream.status).toBe(200);
+		expect(stream.headers.get('content-type')).toContain('text/event-stream');
+		const [feature] = (await (await drafter.api(one, 'GET', `${revision}/features`)).json()) as {
+			id: string;
+			version: number;
+		}[];
+		const edited = await drafter.api(one, 'PATCH', `${revision}/features/${feature.id}`, {
+			version: feature.version,
+			notes: 'Edited through the first instance'
+		});
+		expect(edited.status).toBe(200);
+		const reader = stream.body!.getReader();
+		let text = '';
+		const deadline = Date.now() + 10_000;
+		while (!text.includes(feature.id) && Date.now() < deadline) {
+			const { value, done } = await reader.read();
+			if (done) break;
+			text += new TextDecoder().decode(value);
+		}
+		await reader.cancel();
+		expect(text).toMatch(/event: change\nid: \d+\ndata: \{"type":"feature","action":"update"/);
+		expect(text).toContain(`"id":"${feature.id}","version":${feature.version + 1}`);
+	});
+
 	it('enforces on one instance a role change made through the other, at once', async () => {
 		const admin = new Browser();
 		const quality = new Browser();

@@ -10,6 +10,7 @@ import {
 	inputOf,
 	writtenQuantity
 } from '../../src/lib/board/feature-form';
+import { conflictRows, reapplied } from '../../src/lib/board/conflict';
 import type { FeatureJson } from '../../src/lib/features';
 
 const iso = { units: 'mm', standard: 'iso-8015', generalTolerance: null } as const;
@@ -111,5 +112,50 @@ describe('the feature form on the board', () => {
 		expect(marker).toMatchObject({ label: '7', title: 'Bore: Ø12 H7', movable: true });
 		expect(featureIdOf(marker.id)).toBe(feature.id);
 		expect(featureIdOf('finding-3')).toBeNull();
+	});
+});
+
+describe('a feature edit overtaken by someone else', () => {
+	it('puts the typed fields back on top of the feature as it stands now', () => {
+		const theirs = saved({ label: 'Bearing bore', callout: 'Ø18 H8' });
+		const mine = { notes: 'Hone to size.', datumFeature: 'B', quantity: 2 };
+		const draft = reapplied(theirs, mine);
+		expect(draft.label).toBe('Bearing bore');
+		expect(draft.callout).toBe('Ø18 H8');
+		expect(draft.notes).toBe('Hone to size.');
+		expect(draft.datumFeature).toBe('B');
+		expect(draft.quantity).toBe('2');
+		// Saving it sends exactly the person's changes, against the newer version.
+		expect(changesOf(theirs, draft)).toEqual(mine);
+	});
+
+	it('takes back a changed callout and tolerances, and leaves the rest as they now are', () => {
+		const theirs = saved({ label: 'Renamed by someone', callout: 'Ø18 H8' });
+		const controls = [
+			{
+				characteristic: 'position',
+				value: '0.02',
+				diameterZone: true,
+				appliesTo: 'median',
+				modifier: 'mmc',
+				datums: ['A']
+			}
+		] as FeatureJson['controls'];
+		const draft = reapplied(theirs, { callout: 'Ø18 H6', controls });
+		expect(draft).toEqual({ ...draftOf(theirs), callout: 'Ø18 H6', controls });
+		expect(draft.controls).not.toBe(controls);
+	});
+
+	it('lists each typed field beside the saved value', () => {
+		const rows = conflictRows(saved({ callout: 'Ø18 H8' }), {
+			callout: 'Ø18 H6',
+			notes: 'Hone.',
+			boughtOut: true
+		});
+		expect(rows).toEqual([
+			{ key: 'callout', name: 'Callout', yours: 'Ø18 H6', saved: 'Ø18 H8' },
+			{ key: 'notes', name: 'Notes', yours: 'Hone.', saved: '—' },
+			{ key: 'boughtOut', name: 'Bought-out part', yours: 'yes', saved: 'no' }
+		]);
 	});
 });

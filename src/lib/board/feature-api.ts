@@ -15,6 +15,7 @@ export function featureApi(base: string) {
 		callApi<T, FeatureJson>(url, init);
 	return {
 		list: () => call<FeatureJson[]>(features, { method: 'GET' }),
+		get: (id: string) => call<FeatureJson>(`${features}/${id}`, { method: 'GET' }),
 		create: (input: NewFeature) => call<FeatureJson>(features, { method: 'POST', body: input }),
 		edit: (id: string, version: number, changes: Omit<FeatureChanges, 'version'>) =>
 			call<FeatureJson>(`${features}/${id}`, {

@@ -24,7 +24,18 @@ export class FeatureBoard {
 	/** A short word on the last write that the panel shows (a refusal, a stale edit). */
 	notice = $state<{ tone: 'error' | 'info'; text: string } | null>(null);
 	board: BoardState | null = $state.raw(null);
+	/**
+	 * What the person had typed when someone else's change came first (a stale save, or a live
+	 * change to the feature open in the panel): kept aside to re-apply, never silently dropped.
+	 */
+	conflict = $state.raw<{ id: string; mine: Partial<NewFeature> } | null>(null);
+	/** The open panel's unsaved changes (set by the panel), so a live change does not eat them. */
+	editing: { id: string; changes: Partial<NewFeature> } | null = null;
 	#placingFor: string | null = null;
+	/** Features with a save of ours under way: their answer, not an event, says what they became. */
+	#saving: string[] = [];
+	/** Others' changes that came during such a save, shown once it is answered. */
+	#deferred: Record<string, FeatureJson> = {};
 
 	constructor(
 		readonly api: FeatureApi,
@@ -141,8 +152,13 @@ export class FeatureBoard {
 	}
 
 	/** A refused write: a stale one shows the feature as it is now. */
-	#refused(answer: Exclude<Answer<unknown>, { ok: true }>, balloon?: number) {
+	#refused(
+		answer: Exclude<Answer<unknown>, { ok: true }>,
+		balloon?: number,
+		mine?: Partial<NewFeature>
+	) {
 		if (answer.code === 'stale' && answer.current) {
+			if (mine && Object.keys(mine).length > 0) this.conflict = { id: answer.current.id, mine };
 			this.#put(answer.current);
 			this.notice = {
 				tone: 'error',
@@ -172,11 +188,17 @@ export class FeatureBoard {
 
 	async save(feature: FeatureJson, changes: Partial<NewFeature>) {
 		this.notice = null;
+		this.#saving = [...this.#saving, feature.id];
 		const answer = await this.api.edit(feature.id, feature.version, changes);
+		const i = this.#saving.indexOf(feature.id);
+		this.#saving = this.#saving.filter((_, at) => at !== i);
+		const later = this.#deferred[feature.id];
+		delete this.#deferred[feature.id];
 		if (answer.ok) {
-			this.#put(answer.value);
+			if (this.conflict?.id === feature.id) this.conflict = null;
+			this.#put(later && later.version > answer.value.version ? later : answer.value);
 			this.notice = { tone: 'info', text: `Balloon ${answer.value.balloon} saved.` };
-		} else this.#refused(answer, feature.balloon);
+		} else this.#refused(answer, feature.balloon, changes);
 		return answer;
 	}
 
@@ -211,6 +233,36 @@ export class FeatureBoard {
 			this.notice = { tone: 'info', text: `Balloon ${feature.balloon} deleted.` };
 		} else this.#refused(answer, feature.balloon);
 		return answer;
+	}
+
+	/**
+	 * Someone else's change, as the server has it now (a live event): shown at once. When it is
+	 * the feature open with unsaved changes, those are kept aside as a conflict to re-apply.
+	 */
+	applyRemote(feature: FeatureJson) {
+		const known = this.features.find((f) => f.id === feature.id);
+		if (known && known.version >= feature.version) return;
+		if (this.#saving.includes(feature.id)) {
+			this.#deferred[feature.id] = feature;
+			return;
+		}
+		const editing = this.editing;
+		if (known && editing?.id === feature.id && Object.keys(editing.changes).length > 0) {
+			this.conflict = { id: feature.id, mine: editing.changes };
+		}
+		this.#put(feature);
+	}
+
+	/** A feature someone else deleted. */
+	forget(id: string) {
+		const gone = this.features.find((f) => f.id === id);
+		if (!gone) return;
+		this.features = this.features.filter((f) => f.id !== id);
+		this.board?.removeMarkers([`feature-${id}`]);
+		if (this.selection?.kind === 'feature' && this.selection.id === id) {
+			this.close();
+			this.notice = { tone: 'error', text: `Someone deleted balloon ${gone.balloon}.` };
+		}
 	}
 
 	/** Reads every feature again (after the revision's settings changed, say). */

@@ -9,6 +9,7 @@ import type { CommentJson, FindingChanges, FindingJson, NewFinding } from '$lib/
 export function findingApi(base: string) {
 	const findings = `${base}/findings`;
 	return {
+		list: () => call<FindingJson[]>(findings, { method: 'GET' }),
 		get: (id: string) => call<FindingJson, FindingJson>(`${findings}/${id}`, { method: 'GET' }),
 		raise: (input: NewFinding) =>
 			call<FindingJson, FindingJson>(findings, { method: 'POST', body: input }),

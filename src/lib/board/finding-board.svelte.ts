@@ -158,6 +158,15 @@ export class FindingBoard {
 		return answer;
 	}
 
+	/** Reads every finding again (the rulebook changed several at once). */
+	async reload() {
+		const answer = await this.api.list();
+		if (!answer.ok) return;
+		const gone = this.findings.filter((f) => !answer.value.some((g) => g.id === f.id));
+		this.board?.removeMarkers(gone.map((f) => findingMarkerId(f.id)));
+		for (const f of answer.value) this.#put(f);
+	}
+
 	/** Reads one finding again (its state, history and version) after a change elsewhere. */
 	async refresh(id: string) {
 		const answer = await this.api.get(id);

@@ -67,6 +67,7 @@ export type CommentOutcome = { ok: true; comment: CommentJson } | CommentRefusal
 const placeOf = (thread: Thread): ThreadPlace => ({
 	teamId: thread.team.id,
 	drawingId: thread.drawing.id,
+	revisionId: thread.revision.id,
 	title: thread.title
 });
 

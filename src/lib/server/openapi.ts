@@ -20,6 +20,7 @@ import {
 	findingResponse
 } from '$lib/schemas/findings';
 import { importDescription } from '$lib/schemas/feature-import';
+import { eventsQuery } from '$lib/schemas/events';
 import {
 	activityQuery,
 	apiTokenInput,
@@ -173,6 +174,17 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 			summary: 'The PDF, streamed through the app, with HTTP Range support',
 			success: 200,
 			produces: 'application/pdf'
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/events': {
+		get: {
+			summary:
+				"The revision's changes as server-sent events, live: `event: change`, `id:` a durable sequence number, data `{type, action, id, version}` (a comment adds `subject`, its thread)",
+			description:
+				'`type` is `feature`, `fit`, `finding`, `comment` or `revision`. Reconnecting with the `Last-Event-ID` header (or `?after=`) first sends what was missed, read from the database; without either the stream starts now. A heartbeat comment comes every 15 s. The stream checks access when it opens and ends with `event: end` once the member may no longer see the revision (removed from the team; supplier quality, a revision not released); on shutdown it ends with a `retry:` hint.',
+			query: eventsQuery,
+			success: 200,
+			produces: 'text/event-stream'
 		}
 	},
 	'/teams/{team}/drawings/{number}/revisions/{letter}/features': {

@@ -11,12 +11,30 @@ import * as schema from './schema';
 
 export type Db = PgDatabase<PgQueryResultHKT, typeof schema>;
 
+/** What a listener hears: each notification's payload, and that it listens again after a gap. */
+export interface Listener {
+	notice: (payload: string) => void;
+	/** The connection was lost and is back: notifications in between are gone (catch up). */
+	resumed?: () => void;
+}
+
 export interface Database {
 	db: Db;
 	kind: 'pglite' | 'postgres';
 	migrate: (migrationsFolder?: string) => Promise<void>;
+	/**
+	 * LISTEN on `channel` (a plain lower-case name): PGlite in this process, or one connection
+	 * of its own to the PostgreSQL server that comes back when lost. Returns the way to stop;
+	 * `close` stops it too.
+	 */
+	listen: (channel: string, listener: Listener) => Promise<() => Promise<void>>;
 	close: () => Promise<void>;
 }
+
+const channelName = (channel: string) => {
+	if (!/^[a-z_][a-z0-9_]*$/.test(channel)) throw new Error(`Not a channel name: ${channel}`);
+	return channel;
+};
 
 export class DataDirInUseError extends Error {
 	constructor(
@@ -93,6 +111,12 @@ export async function openPglite(dataDir: string | null): Promise<Database> {
 		kind: 'pglite',
 		migrate: (folder = defaultMigrations()) =>
 			migratePglite(db as never, { migrationsFolder: folder }),
+		listen: async (channel, listener) => {
+			const stop = await client.listen(channelName(channel), listener.notice);
+			return async () => {
+				if (!client.closed) await stop();
+			};
+		},
 		close: async () => {
 			try {
 				if (!client.closed) await client.close();
@@ -122,9 +146,19 @@ export async function openPostgres(
 	// ends. The pool replaces the connection on the next query.
 	pool.on('error', (err) => console.error(`PostgreSQL connection lost: ${err.message}`));
 	const db = drizzlePg(pool, { schema }) as unknown as Db;
+	const listening = new Set<() => Promise<void>>();
 	return {
 		db,
 		kind: 'postgres',
+		listen: async (channel, listener) => {
+			const stop = await listenPostgres(url, channelName(channel), listener);
+			const once = async () => {
+				listening.delete(once);
+				await stop();
+			};
+			listening.add(once);
+			return once;
+		},
 		// Instances starting together would each apply the same migrations and fail on the
 		// second CREATE: one migrates under the lock, the others wait and find nothing to do.
 		migrate: async (folder = defaultMigrations()) => {
@@ -145,7 +179,61 @@ export async function openPostgres(
 				else (client as pg.PoolClient).release();
 			}
 		},
-		close: () => pool.end()
+		close: async () => {
+			await Promise.all([...listening].map((stop) => stop()));
+			await pool.end();
+		}
+	};
+}
+
+/**
+ * One connection that LISTENs; when it is lost (a server restart, a network cut) a new one is
+ * opened a second later and the listener told `resumed`, since what was sent meanwhile is lost.
+ */
+async function listenPostgres(url: string, channel: string, listener: Listener) {
+	let client: pg.Client | null = null;
+	let stopped = false;
+	let retry: ReturnType<typeof setTimeout> | undefined;
+	const open = async (again: boolean): Promise<void> => {
+		const next = new pg.Client({ connectionString: url });
+		let lost = false;
+		const reopen = () => {
+			if (lost) return;
+			lost = true;
+			if (client === next) client = null;
+			if (!stopped) retry = setTimeout(() => void open(true).catch(() => {}), 1000);
+		};
+		next.on('notification', (message) => {
+			if (message.channel === channel && message.payload) listener.notice(message.payload);
+		});
+		next.on('error', (err) => {
+			console.error(`PostgreSQL listening connection lost: ${err.message}`);
+			reopen();
+		});
+		next.on('end', reopen);
+		try {
+			await next.connect();
+			await next.query(`LISTEN ${channel}`);
+		} catch (err) {
+			next.end().catch(() => {});
+			if (!again) throw err;
+			reopen();
+			return;
+		}
+		if (stopped) {
+			await next.end();
+			return;
+		}
+		client = next;
+		if (again) listener.resumed?.();
+	};
+	await open(false);
+	return async () => {
+		stopped = true;
+		clearTimeout(retry);
+		const last = client;
+		client = null;
+		await last?.end().catch(() => {});
 	};
 }
 

@@ -525,3 +525,32 @@ export type DrawingRow = typeof drawings.$inferSelect;
 export type RevisionRow = typeof revisions.$inferSelect;
 export type TeamRow = typeof teams.$inferSelect;
 export type OutboxRow = typeof outbox.$inferSelect;
+
+/** What a revision event is about (PRODUCT.md §6, SSE `type`). */
+export const revisionEventTypes = ['feature', 'fit', 'finding', 'comment', 'revision'] as const;
+export type RevisionEventType = (typeof revisionEventTypes)[number];
+
+/**
+ * Every change to what a revision holds, in commit order per revision: `id` is the durable
+ * sequence number a board's stream sends as the SSE `id:` and catches up from (`Last-Event-ID`).
+ * Written in the same transaction as the change, under the revision's row lock.
+ */
+export const revisionEvents = pgTable(
+	'revision_events',
+	{
+		id: bigserial('id', { mode: 'number' }).primaryKey(),
+		revisionId: uuid('revision_id')
+			.notNull()
+			.references(() => revisions.id, { onDelete: 'cascade' }),
+		type: text('type', { enum: revisionEventTypes }).notNull(),
+		action: text('action').notNull(),
+		entityId: uuid('entity_id').notNull(),
+		version: integer('version'),
+		/** A comment's thread: `{type: 'finding' | 'feature', id}`. */
+		subject: jsonb('subject').$type<{ type: 'finding' | 'feature'; id: string } | null>(),
+		at: timestamp('at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(table) => [index('revision_events_revision_idx').on(table.revisionId, table.id)]
+);
+
+export type RevisionEventRow = typeof revisionEvents.$inferSelect;

@@ -2,6 +2,7 @@ import { and, asc, eq } from 'drizzle-orm';
 import type { Db } from '../connect';
 import { comments, type CommentRow } from '../schema';
 import { recordActivity, type Actor } from './activity';
+import { appendEvent } from './revision-events';
 
 /** What a thread hangs on: a finding or a feature. */
 export type ThreadSubject = { findingId: string } | { featureId: string };
@@ -15,6 +16,8 @@ const onSubject = (subject: ThreadSubject) =>
 export interface ThreadPlace {
 	teamId: string;
 	drawingId: string;
+	/** The revision whose boards hear of the comment. */
+	revisionId: string;
 	/** e.g. "F-3 on revision A of KF-1001". */
 	title: string;
 }
@@ -76,6 +79,15 @@ export async function saveComment(
 			summary: before ? `edited a comment on ${place.title}` : `commented on ${place.title}`,
 			before: before ? stored(before) : undefined,
 			after: stored(row)
+		});
+		await appendEvent(tx, {
+			revisionId: place.revisionId,
+			type: 'comment',
+			action: before ? 'update' : 'create',
+			id: row.id,
+			subject: row.findingId
+				? { type: 'finding', id: row.findingId }
+				: { type: 'feature', id: row.featureId! }
 		});
 		return row;
 	});

@@ -11,6 +11,7 @@ import {
 } from '../schema';
 import { recordActivity, type Actor } from './activity';
 import { recheckRevision } from './rule-findings';
+import { appendEvent } from './revision-events';
 
 export type DrawingInput = Omit<
 	typeof drawings.$inferInsert,
@@ -142,6 +143,11 @@ export async function getRevision(db: Db, drawingId: string, letter: string) {
 		.select()
 		.from(revisions)
 		.where(and(eq(revisions.drawingId, drawingId), eq(revisions.letter, letter)));
+	return row ?? null;
+}
+
+export async function getRevisionById(db: Db, id: string) {
+	const [row] = await db.select().from(revisions).where(eq(revisions.id, id));
 	return row ?? null;
 }
 
@@ -281,6 +287,13 @@ export async function updateRevision(
 		});
 		// Every rule may read the settings: judge the whole revision again.
 		if (settings) await recheckRevision(tx, actor, row.id, 'full');
+		await appendEvent(tx, {
+			revisionId: row.id,
+			type: 'revision',
+			action: 'update',
+			id: row.id,
+			version: row.version
+		});
 		return { ok: true as const, revision: row };
 	});
 }

@@ -10,6 +10,7 @@ import {
 	type RevisionRow
 } from '../schema';
 import { chunks, recordActivity, type Actor, type ActivityEntry } from './activity';
+import { appendEvents } from './revision-events';
 import { lockOpenRevision, StaleWrite, writeOnRevision } from './revision-writes';
 import { recheckRevision, type RecheckScope } from './rule-findings';
 import { visibleToSuppliers } from './drawings';
@@ -150,6 +151,11 @@ export async function createFeatures(
 			actor,
 			revision.id,
 			rows.some((r) => r.datumFeature) ? 'full' : { featureIds: rows.map((r) => r.id) }
+		);
+		await appendEvents(
+			tx,
+			revision.id,
+			rows.map((row) => ({ type: 'feature', action: 'create', id: row.id, version: row.version }))
 		);
 		return rows;
 	});

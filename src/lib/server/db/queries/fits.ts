@@ -112,6 +112,7 @@ export async function createFit(
 		{ actor, drawing, revision },
 		{
 			entity: 'fit',
+			listedOn: (row: FitRow) => [row.shaftRevisionId],
 			write: (tx) =>
 				tx
 					.insert(fits)
@@ -148,6 +149,7 @@ export async function updateFit(
 		{ actor, drawing, revision },
 		{
 			entity: 'fit',
+			listedOn: (row: FitRow) => [row.shaftRevisionId],
 			write: (tx) =>
 				tx
 					.update(fits)
@@ -180,6 +182,7 @@ export async function deleteFit(
 		{ actor, drawing, revision },
 		{
 			entity: 'fit',
+			listedOn: (row: FitRow) => [row.shaftRevisionId],
 			write: (tx) =>
 				tx
 					.delete(fits)

@@ -1,13 +1,15 @@
 /*
- * Writes to what a revision holds (features, fits, and next findings and comments): each runs
- * in one transaction that locks the revision and refuses a frozen one, checks the version the
- * writer saw, and records the change on the activity trail.
+ * Writes to what a revision holds (features, fits, findings): each runs in one transaction that
+ * locks the revision and refuses a frozen one, checks the version the writer saw, records the
+ * change on the activity trail and appends it to the revision's change feed (the boards' live
+ * events, `revision-events.ts`).
  */
 import { eq } from 'drizzle-orm';
 import type { Db } from '../connect';
 import { isFrozen, revisions, type DrawingRow, type RevisionRow } from '../schema';
 import { recordActivity, type ActivityEntry, type Actor } from './activity';
 import { recheckRevision, type RecheckScope } from './rule-findings';
+import { appendEvent } from './revision-events';
 
 export class RevisionFrozen extends Error {
 	constructor(readonly revision: RevisionRow) {
@@ -47,9 +49,11 @@ export interface RevisionPlace {
 	revision: RevisionRow;
 }
 
-export interface RevisionWrite<Row extends { id: string }> {
-	/** The trail's name for the row: `feature`, `fit`, … */
-	entity: string;
+type Written = { id: string; version: number };
+
+export interface RevisionWrite<Row extends Written> {
+	/** The trail's (and the change feed's) name for the row. */
+	entity: 'feature' | 'fit' | 'finding';
 	/** Checks under the lock before the write; throws to refuse. */
 	check?: (tx: Db) => Promise<void>;
 	/** The write (`… .returning()`); no row back means the version it was made against is gone. */
@@ -60,14 +64,16 @@ export interface RevisionWrite<Row extends { id: string }> {
 	record: (row: Row) => Pick<ActivityEntry, 'action' | 'summary' | 'before' | 'after'>;
 	/** What the rulebook re-checks after the write, in the same transaction. */
 	recheck?: (row: Row) => RecheckScope;
+	/** Other revisions the row is listed on (a fit, on its shaft's revision), told of it too. */
+	listedOn?: (row: Row) => (string | null)[];
 }
 
 /**
  * One change to a revision's content in one transaction: lock the revision (refusing a frozen
- * one), check, write with the version check, record it on the trail, and re-check what the
- * rulebook finds about it. Returns the written row.
+ * one), check, write with the version check, record it on the trail and in the change feed,
+ * and re-check what the rulebook finds about it. Returns the written row.
  */
-export async function writeOnRevision<Row extends { id: string }>(
+export async function writeOnRevision<Row extends Written>(
 	db: Db,
 	{ actor, drawing, revision }: RevisionPlace,
 	change: RevisionWrite<Row>
@@ -77,15 +83,28 @@ export async function writeOnRevision<Row extends { id: string }>(
 		await change.check?.(tx);
 		const [row] = await change.write(tx);
 		if (!row) throw (await change.stale?.(tx)) ?? new Error(`The ${change.entity} was not written`);
+		const recorded = change.record(row);
 		await recordActivity(tx, {
 			teamId: drawing.teamId,
 			actor,
 			entity: change.entity,
 			entityId: row.id,
 			drawingId: drawing.id,
-			...change.record(row)
+			...recorded
 		});
 		if (change.recheck) await recheckRevision(tx, actor, revision.id, change.recheck(row));
+		const event = {
+			type: change.entity,
+			action: recorded.action,
+			id: row.id,
+			version: row.version
+		};
+		await appendEvent(tx, { ...event, revisionId: revision.id });
+		for (const other of new Set(change.listedOn?.(row) ?? [])) {
+			if (other && other !== revision.id) {
+				await appendEvent(tx, { ...event, revisionId: other, lock: false });
+			}
+		}
 		return row;
 	});
 }

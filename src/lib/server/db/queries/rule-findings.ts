@@ -37,6 +37,7 @@ import {
 	type RevisionRow
 } from '../schema';
 import { recordActivity, type Actor } from './activity';
+import { appendEvent } from './revision-events';
 
 /** What a change touched: everything, or these features and fits (ids gone are fine). */
 export type RecheckScope = 'full' | { featureIds?: readonly string[]; fitIds?: readonly string[] };
@@ -318,6 +319,16 @@ export async function recheckRevision(
 		}
 	}
 	await keepFindings(tx, actor, place, results.filter(home), subjects, outcome);
+	// Open boards read the findings again when the rulebook raised, reopened or resolved any.
+	if (outcome.raised + outcome.reopened + outcome.resolved + outcome.lapsed > 0) {
+		await appendEvent(tx, {
+			revisionId: revision.id,
+			type: 'finding',
+			action: 'recheck',
+			id: revision.id,
+			version: null
+		});
+	}
 
 	if (cascade) {
 		for (const [otherId, touched] of others) {

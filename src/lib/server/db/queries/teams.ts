@@ -15,6 +15,7 @@ import {
 } from '../schema';
 import { recordActivity, type Actor } from './activity';
 import { recheckRevision } from './rule-findings';
+import { noticeMemberChange } from './revision-events';
 
 export async function getTeamBySlug(db: Db, slug: string) {
 	const [team] = await db.select().from(teams).where(eq(teams.slug, slug));
@@ -193,6 +194,7 @@ export async function changeRole(db: Db, actor: Actor, teamId: string, userId: s
 			after: { role }
 		});
 		if (!can(role, 'manageTeam')) await revokeInvitationsBy(tx, actor, teamId, userId);
+		await noticeMemberChange(tx, teamId, userId);
 		return updated;
 	});
 }
@@ -216,6 +218,7 @@ export async function removeMember(db: Db, actor: Actor, teamId: string, userId:
 			before: { userId, role: current.role }
 		});
 		await revokeInvitationsBy(tx, actor, teamId, userId);
+		await noticeMemberChange(tx, teamId, userId);
 		return true;
 	});
 }

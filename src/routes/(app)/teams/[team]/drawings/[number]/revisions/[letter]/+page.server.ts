@@ -13,6 +13,7 @@ import { isFrozen } from '$lib/server/db/schema';
 import { findingChoices, findingsOf, powersOf } from '$lib/server/findings';
 import { fitsOf } from '$lib/server/fits';
 import type { FitAnswer } from '$lib/fits';
+import { latestEventSeq } from '$lib/server/db/queries/revision-events';
 import { requireRevision } from '$lib/server/drawings';
 import { featuresOf } from '$lib/server/features';
 import { checkSummaryOf } from '$lib/server/rulebook';
@@ -23,6 +24,9 @@ export const load: PageServerLoad = async ({ params }) => {
 	const place = await requireRevision(params.team, params.number, params.letter, 'view');
 	const { drawing, revision, membership } = place;
 	const frozen = isFrozen(revision.state);
+	// Read first: the board's live stream starts here, so nothing written after the rest of
+	// this load is missed (an event for a change already loaded is harmless).
+	const liveAfter = await latestEventSeq(db, revision.id);
 	const asker = { user: place.user, role: membership.role };
 	const [uploader, features, findings, [fits, choices], checkSummary] = await Promise.all([
 		revision.uploadedBy ? getUserById(db, revision.uploadedBy) : null,
@@ -56,7 +60,8 @@ export const load: PageServerLoad = async ({ params }) => {
 		/** What a new finding's fields offer. */
 		choices,
 		checkSummary,
-		mayCheck: can(membership.role, 'judgeFindings') && !frozen
+		mayCheck: can(membership.role, 'judgeFindings') && !frozen,
+		liveAfter
 	};
 };
 

@@ -3,6 +3,7 @@ import { countFindings } from '$lib/findings';
 import { findingQuery } from '$lib/schemas/findings';
 import { can } from '$lib/server/capabilities';
 import { db } from '$lib/server/db';
+import { latestEventSeq } from '$lib/server/db/queries/revision-events';
 import { isFrozen } from '$lib/server/db/schema';
 import { requireRevision } from '$lib/server/drawings';
 import { readRaiseForm, refusedForm } from '$lib/server/finding-forms';
@@ -32,6 +33,8 @@ function filtersOf(url: URL) {
 export const load: PageServerLoad = async ({ params, url }) => {
 	const place = await requireRevision(params.team, params.number, params.letter, 'view');
 	const filters = filtersOf(url);
+	// Read first: the live stream starts here and misses nothing written after this load.
+	const liveAfter = await latestEventSeq(db, place.revision.id);
 	const [shown, all, fits] = await Promise.all([
 		findingsOf(db, place, filters.query),
 		findingsOf(db, place),
@@ -47,7 +50,8 @@ export const load: PageServerLoad = async ({ params, url }) => {
 		filters: filters.raw,
 		filterProblem: filters.problem,
 		...choices,
-		mayRaise: can(place.membership.role, 'raiseFindings') && !isFrozen(place.revision.state)
+		mayRaise: can(place.membership.role, 'raiseFindings') && !isFrozen(place.revision.state),
+		liveAfter
 	};
 };
 
