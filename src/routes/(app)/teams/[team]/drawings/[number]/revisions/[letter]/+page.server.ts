@@ -10,6 +10,7 @@ import { countFindings } from '$lib/findings';
 import { requireRevision } from '$lib/server/drawings';
 import { featuresOf } from '$lib/server/features';
 import { fieldErrorsOf, refuseForm } from '$lib/server/forms';
+import { movesFor, transitionsOf } from '$lib/server/transitions';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params }) => {
@@ -31,7 +32,11 @@ export const load: PageServerLoad = async ({ params }) => {
 			editFeatures: can(membership.role, 'editFeatures') && !frozen,
 			editSettings: can(membership.role, 'author') && !frozen
 		},
-		findingCounts
+		findingCounts,
+		review: {
+			moves: movesFor(membership.role, revision.state),
+			last: (await transitionsOf(db, revision.id)).at(-1) ?? null
+		}
 	};
 };
 
