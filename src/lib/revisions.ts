@@ -86,6 +86,17 @@ export const findMove = (from: RevisionState, to: RevisionState) =>
 
 export const movesFrom = (from: RevisionState) => revisionMoves.filter((m) => m.from === from);
 
+/** What the history and the trail say of a move: "returned by …". */
+export const movePastTense: Record<string, string> = {
+	submit: 'submitted',
+	return: 'returned',
+	approve: 'approved',
+	resubmit: 'resubmitted',
+	release: 'released',
+	reopen: 'reopened',
+	supersede: 'superseded'
+};
+
 export const revisionStateLabels: Record<RevisionState, string> = {
 	draft: 'Draft',
 	'in-check': 'In check',

@@ -5,7 +5,7 @@
  * same transaction.
  */
 import { and, asc, eq, inArray, ne, sql } from 'drizzle-orm';
-import type { RevisionMove } from '$lib/revisions';
+import { movePastTense, type RevisionMove } from '$lib/revisions';
 import type { Db } from '../connect';
 import { revisions, revisionTransitions, users, type RevisionRow } from '../schema';
 import { recordActivity, type Actor } from './activity';
@@ -114,23 +114,13 @@ export async function moveRevision(
 		},
 		record: (row) => ({
 			action: move!.name,
-			summary: `${pastTense[move!.name] ?? move!.name} ${revisionName(row, drawing.number)}${message ? `: ${message}` : ''}`,
+			summary: `${movePastTense[move!.name] ?? move!.name} ${revisionName(row, drawing.number)}${message ? `: ${message}` : ''}`,
 			before: { state: move!.from },
 			after: { state: row.state, message }
 		})
 	});
 	return { revision, move: move! as RevisionMove, at };
 }
-
-const pastTense: Record<string, string> = {
-	submit: 'submitted',
-	return: 'returned',
-	approve: 'approved',
-	resubmit: 'resubmitted',
-	release: 'released',
-	reopen: 'reopened',
-	supersede: 'superseded'
-};
 
 /** The drawing's previously released revision becomes superseded by `released`. */
 async function supersedeOthers(
@@ -153,16 +143,14 @@ async function supersedeOthers(
 		.returning();
 	for (const row of older) {
 		const message = `Revision ${released.letter} released`;
-		await tx
-			.insert(revisionTransitions)
-			.values({
-				revisionId: row.id,
-				from: 'released',
-				to: 'superseded',
-				message,
-				byId: actor.id,
-				at
-			});
+		await tx.insert(revisionTransitions).values({
+			revisionId: row.id,
+			from: 'released',
+			to: 'superseded',
+			message,
+			byId: actor.id,
+			at
+		});
 		await recordActivity(tx, {
 			teamId: drawing.teamId,
 			actor,
