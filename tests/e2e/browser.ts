@@ -58,6 +58,15 @@ export async function signIn(page: Page, baseUrl: string, email: string) {
 	await page.getByRole('heading', { name: 'Your teams' }).waitFor();
 }
 
+/** A person of the demo team signed in in a browser context of their own, with its outside requests. */
+export async function personAt(browser: Browser, baseUrl: string, email: string) {
+	const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+	const page = await context.newPage();
+	const outside = watchOutsideRequests(page, baseUrl);
+	await signIn(page, baseUrl, email);
+	return { page, outside };
+}
+
 const literally = (text: string) => new RegExp(text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&'));
 
 /**

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { Client } from '../app/client';
 import { draftRevision } from '../app/revisions';
-import { launchBrowser, screenshot, signIn, watchOutsideRequests } from './browser';
+import { launchBrowser, personAt as signedIn, screenshot } from './browser';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -14,13 +14,7 @@ afterAll(async () => {
 	await browser?.close();
 });
 
-async function personAt(email: string) {
-	const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-	const page = await context.newPage();
-	const outside = watchOutsideRequests(page, baseUrl);
-	await signIn(page, baseUrl, email);
-	return { page, outside };
-}
+const personAt = (email: string) => signedIn(browser, baseUrl, email);
 
 /** Presses a state change on the finding's page, with a message, and waits for the new state. */
 async function move(page: Page, button: string, message: string, state: string) {

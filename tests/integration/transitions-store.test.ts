@@ -87,6 +87,18 @@ async function move(
 	);
 }
 
+/** A finding the checker raised on the revision. */
+async function raise(place: { drawing: DrawingRow; revision: RevisionRow }, severity: string) {
+	const raised = await raiseFinding(
+		database.db,
+		people.checker,
+		{ ...place, team },
+		findingInput.parse({ text: 'Slot width has no limits', severity })
+	);
+	if (!raised.ok) throw new Error(raised.message);
+	return raised.finding;
+}
+
 const stateOf = async (revision: RevisionRow) =>
 	(await database.db.select().from(revisions).where(eq(revisions.id, revision.id)))[0];
 
@@ -189,15 +201,9 @@ describe('messages', () => {
 describe('the approval gate', () => {
 	async function withFinding(values: Partial<typeof findings.$inferInsert>) {
 		const place = await revisionIn('in-check');
-		const raised = await raiseFinding(
-			database.db,
-			people.checker,
-			place,
-			findingInput.parse({ text: 'Slot width has no limits', severity: 'critical' })
-		);
-		if (!raised.ok) throw new Error(raised.message);
-		await database.db.update(findings).set(values).where(eq(findings.id, raised.finding.id));
-		return { place, number: raised.finding.number };
+		const finding = await raise(place, 'critical');
+		await database.db.update(findings).set(values).where(eq(findings.id, finding.id));
+		return { place, number: finding.number };
 	}
 
 	it.each([
@@ -325,21 +331,13 @@ describe('comments on frozen revisions', () => {
 		['superseded', false]
 	] as const)('on a %s revision: taken %s', async (state, taken) => {
 		const place = await revisionIn('in-check');
-		const raised = await raiseFinding(
-			database.db,
-			people.checker,
-			place,
-			findingInput.parse({ text: 'Chamfer missing', severity: 'minor' })
-		);
-		if (!raised.ok) throw new Error(raised.message);
+		const finding = await raise(place, 'minor');
 		const [frozen] = await database.db
 			.update(revisions)
 			.set({ state })
 			.where(eq(revisions.id, place.revision.id))
 			.returning();
-		const row = (
-			await database.db.select().from(findings).where(eq(findings.id, raised.finding.id))
-		)[0];
+		const row = (await database.db.select().from(findings).where(eq(findings.id, finding.id)))[0];
 		const outcome = await addComment(
 			database.db,
 			{ user: people.checker, role: 'checker' },

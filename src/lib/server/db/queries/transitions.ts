@@ -21,24 +21,15 @@ const transitionColumns = {
 	at: revisionTransitions.at
 };
 
-/** A revision's moves, oldest first, with who made each. */
-export async function listTransitions(db: Db, revisionId: string) {
+/** The moves of one revision, or of several (a drawing's history), oldest first, with who made each. */
+export async function listTransitions(db: Db, revisionIds: string | string[]) {
+	const ids = typeof revisionIds === 'string' ? [revisionIds] : revisionIds;
+	if (ids.length === 0) return [];
 	return db
 		.select(transitionColumns)
 		.from(revisionTransitions)
 		.leftJoin(users, eq(users.id, revisionTransitions.byId))
-		.where(eq(revisionTransitions.revisionId, revisionId))
-		.orderBy(asc(revisionTransitions.id));
-}
-
-/** The moves of several revisions (a drawing's history), oldest first. */
-export async function listTransitionsOf(db: Db, revisionIds: string[]) {
-	if (revisionIds.length === 0) return [];
-	return db
-		.select(transitionColumns)
-		.from(revisionTransitions)
-		.leftJoin(users, eq(users.id, revisionTransitions.byId))
-		.where(inArray(revisionTransitions.revisionId, revisionIds))
+		.where(inArray(revisionTransitions.revisionId, ids))
 		.orderBy(asc(revisionTransitions.id));
 }
 

@@ -13,7 +13,7 @@ import { readDrawingForm } from '$lib/server/drawing-forms';
 import { requireDrawing } from '$lib/server/drawings';
 import { refuseForm } from '$lib/server/forms';
 import { nextRevisionLetter } from '$lib/revision-letters';
-import { listTransitionsOf } from '$lib/server/db/queries/transitions';
+import { listTransitions } from '$lib/server/db/queries/transitions';
 import { transitionJson } from '$lib/server/transitions';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -24,7 +24,7 @@ export const load: PageServerLoad = async ({ params }) => {
 		'view'
 	);
 	const revisions = await listRevisions(db, drawing.id, { releasedOnly });
-	const moves = await listTransitionsOf(
+	const moves = await listTransitions(
 		db,
 		revisions.map((r) => r.revision.id)
 	);
