@@ -108,8 +108,21 @@ describe('drawings', () => {
 		await drafter.api('POST', '/teams/kestrel/drawings', drawing(number));
 		expect((await outsider.api('GET', `/teams/kestrel/drawings/${number}`)).status).toBe(404);
 		expect((await quality.api('GET', `/teams/kestrel/drawings/${number}`)).status).toBe(404);
-		const list = (await (await quality.api('GET', '/teams/kestrel/drawings')).json()) as unknown[];
-		expect(list).toEqual([]);
+		const list = (await (await quality.api('GET', '/teams/kestrel/drawings')).json()) as {
+			number: string;
+			latestRevision: { letter: string; state: string };
+		}[];
+		// The demo's released housing (KF-1001 A) and drawings other tests released, nothing else.
+		expect(list.map((d) => d.number)).not.toContain(number);
+		expect(list).toContainEqual(
+			expect.objectContaining({
+				number: 'KF-1001',
+				latestRevision: expect.objectContaining({ letter: 'A', state: 'released' })
+			})
+		);
+		for (const listed of list) {
+			expect(['released', 'superseded']).toContain(listed.latestRevision.state);
+		}
 		expect(
 			(await checker.api('POST', '/teams/kestrel/drawings', drawing(newNumber()))).status
 		).toBe(403);

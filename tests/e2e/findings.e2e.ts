@@ -90,25 +90,25 @@ describe('a finding through its table and its thread', () => {
 		expect(drafter.outside).toEqual([]);
 	});
 
-	it("lists the demo's findings with links to their place on the board", async () => {
-		const checker = await personAt('checker@example.test');
+	it("lists the demo's released findings to supplier quality, with links to their place on the board", async () => {
+		// Supplier quality on first sign-in: KF-1001 A is released, its findings resolved.
+		const quality = await personAt('quality@example.test');
 		const revision = `${baseUrl}/teams/kestrel/drawings/KF-1001/revisions/A`;
-		await checker.page.goto(revision);
-		const counts = checker.page.locator('[data-finding-counts]');
-		// The rulebook's four findings on KF-1001 (README demo section) and the checker's anodising one.
-		await counts.getByText('5 open').waitFor();
-		await checker.page.getByRole('link', { name: 'Findings', exact: true }).click();
-		const anodise = checker.page.locator('[data-finding="5"]');
+		await quality.page.goto(revision);
+		await quality.page.locator('[data-review][data-state="released"]').waitFor();
+		await quality.page.getByRole('link', { name: 'Findings', exact: true }).click();
+		// Numbered after the rulebook's four findings on KF-1001 (README demo section).
+		const anodise = quality.page.locator('[data-finding="5"]');
 		await anodise.getByText('Anodising').waitFor();
 		const href = await anodise.getByRole('link', { name: 'Show on sheet 1' }).getAttribute('href');
 		const view = new URL(href!, baseUrl).searchParams;
 		expect(view.get('sheet')).toBe('1');
 		expect(view.get('show')).toMatch(/^finding-[0-9a-f-]{36}$/);
 		expect(view.get('centre')).toMatch(/^0\.\d{5},0\.\d{5}$/);
-		await screenshot(checker.page, 'findings-demo');
+		await screenshot(quality.page, 'findings-demo');
 		await anodise.getByRole('link', { name: 'F-5' }).click();
-		await checker.page.locator('[data-thread] .mention').first().waitFor();
-		expect(checker.outside).toEqual([]);
+		await quality.page.locator('[data-thread] .mention').first().waitFor();
+		expect(quality.outside).toEqual([]);
 	});
 });
 

@@ -1,6 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { asc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { activity } from '../../src/lib/server/db/schema';
 import type { Database } from '../../src/lib/server/db/connect';
 import { getDrawing, getRevision } from '../../src/lib/server/db/queries/drawings';
 import { getTeamBySlug } from '../../src/lib/server/db/queries/teams';
@@ -9,6 +11,7 @@ import { seedDemo } from '../../src/lib/server/demo/seed';
 import { featuresOf } from '../../src/lib/server/features';
 import { fitsOf } from '../../src/lib/server/fits';
 import { findingsOf } from '../../src/lib/server/findings';
+import { transitionsOf } from '../../src/lib/server/transitions';
 import { commentsOf, findingThread } from '../../src/lib/server/comments';
 import { getFinding } from '../../src/lib/server/db/queries/findings';
 import { createStorage } from '../../src/lib/server/storage';
@@ -131,7 +134,7 @@ describe('the demo board', () => {
 		// Seeded twice (beforeAll), numbered once.
 		expect(byDrawing).toEqual({
 			// Numbered after the rulebook's own findings, raised as the drawings were made.
-			'KF-1001': ['F-5 minor raised', 'F-6 note resolved'],
+			'KF-1001': ['F-5 minor resolved', 'F-6 note resolved'],
 			'KF-1002': ['F-2 major answered'],
 			'KF-1003': [],
 			'KF-2001': ['F-5 note withdrawn']
@@ -147,6 +150,55 @@ describe('the demo board', () => {
 		const housing = await placeOf('KF-1001');
 		const [anodise] = await findingsOf(database.db, housing, { kind: 'manual' });
 		expect(anodise.location).toMatchObject({ w: 0.3, h: 0.035 });
+	});
+
+	it('takes KF-1001 A once round the review loop to released; KF-1002 stays in check', async () => {
+		const states: Record<string, string> = {};
+		for (const number of ['KF-1001', 'KF-1002', 'KF-1003', 'KF-2001']) {
+			states[number] = (await placeOf(number)).revision.state;
+		}
+		expect(states).toEqual({
+			'KF-1001': 'released',
+			'KF-1002': 'in-check',
+			'KF-1003': 'draft',
+			'KF-2001': 'draft'
+		});
+		const housing = await placeOf('KF-1001');
+		// Seeded twice (beforeAll), moved once.
+		const history = await transitionsOf(database.db, housing.revision.id);
+		expect(history.map((t) => `${t.name} ${t.byName}`)).toEqual([
+			'submit Tomas Reyes',
+			'return Priya Natarajan',
+			'resubmit Tomas Reyes',
+			'approve Priya Natarajan',
+			'release Priya Natarajan'
+		]);
+		expect(history[1].message).toContain('F-1');
+		expect(housing.revision.approvedBy).toBe(history[3].by);
+		expect(housing.revision.releasedBy).toBe(history[4].by);
+		// The findings were answered and resolved between the return and the resubmission.
+		const trail = await database.db
+			.select()
+			.from(activity)
+			.where(eq(activity.drawingId, housing.drawing.id))
+			.orderBy(asc(activity.id));
+		const steps = trail
+			.filter((row) => row.entity === 'revision' || row.action === 'state')
+			.map((row) =>
+				row.entity === 'revision' ? row.action : `F ${(row.after as { state: string }).state}`
+			);
+		expect(steps).toEqual([
+			'upload',
+			'submit',
+			'return',
+			'F answered',
+			'F resolved',
+			'F answered',
+			'F resolved',
+			'resubmit',
+			'approve',
+			'release'
+		]);
 	});
 });
 

@@ -1,8 +1,9 @@
 /*
  * Threads: comments on findings and on features. The body is kept as typed; every answer
  * carries it rendered and sanitized (`comment-html.ts`), with `@mentions` resolved to members
- * of the team only. Anyone who may raise findings comments on any revision; supplier quality
- * comments on released revisions only (PRODUCT.md §2). Authors edit their own comment for
+ * of the team only. Anyone who may raise findings comments on open and released revisions;
+ * supplier quality on released revisions only (PRODUCT.md §2); an approved or superseded
+ * revision takes none (409 `frozen`). Authors edit their own comment for
  * ten minutes after posting; it then shows as edited.
  */
 import { canStillEdit, commentEditMinutes, findingName, type CommentJson } from '$lib/findings';
@@ -18,6 +19,7 @@ import {
 	type ThreadSubject
 } from './db/queries/comments';
 import { isVisibleToSuppliers } from './db/queries/drawings';
+import { RevisionFrozen } from './db/queries/revision-writes';
 import { listMembers } from './db/queries/teams';
 import type {
 	CommentRow,
@@ -59,7 +61,7 @@ export const featureThread = (
 export type CommentRefusal = {
 	ok: false;
 	status: 403 | 409;
-	code: 'forbidden' | 'too_late';
+	code: 'forbidden' | 'too_late' | 'frozen';
 	message: string;
 };
 export type CommentOutcome = { ok: true; comment: CommentJson } | CommentRefusal;
@@ -70,6 +72,22 @@ const placeOf = (thread: Thread): ThreadPlace => ({
 	revisionId: thread.revision.id,
 	title: thread.title
 });
+
+/** Writes a comment; an approved or superseded revision refuses it (409 `frozen`). */
+async function save(...args: Parameters<typeof saveComment>) {
+	try {
+		return { ok: true as const, row: await saveComment(...args) };
+	} catch (err) {
+		if (!(err instanceof RevisionFrozen)) throw err;
+		const { letter, state } = err.revision;
+		return {
+			ok: false as const,
+			status: 409 as const,
+			code: 'frozen' as const,
+			message: `Revision ${letter} is ${state}: its threads take no more comments.`
+		};
+	}
+}
 
 function commentJson(row: CommentRow, members: readonly Mentionable[]): CommentJson {
 	return {
@@ -107,14 +125,15 @@ export async function addComment(
 	}
 	const members = await listMembers(db, thread.team.id);
 	const { mentions } = renderComment(body, members);
-	const row = await saveComment(
+	const saved = await save(
 		db,
 		asker.user,
 		placeOf(thread),
 		{ subject: thread.subject },
 		{ body, mentions }
 	);
-	return { ok: true, comment: commentJson(row, members) };
+	if (!saved.ok) return saved;
+	return { ok: true, comment: commentJson(saved.row, members) };
 }
 
 /** The author's own comment, within ten minutes of posting it. */
@@ -143,6 +162,7 @@ export async function editComment(
 	}
 	const members = await listMembers(db, thread.team.id);
 	const { mentions } = renderComment(body, members);
-	const row = await saveComment(db, user, placeOf(thread), { comment }, { body, mentions });
-	return { ok: true, comment: commentJson(row, members) };
+	const saved = await save(db, user, placeOf(thread), { comment }, { body, mentions });
+	if (!saved.ok) return saved;
+	return { ok: true, comment: commentJson(saved.row, members) };
 }

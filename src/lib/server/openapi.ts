@@ -21,6 +21,7 @@ import {
 } from '$lib/schemas/findings';
 import { importDescription } from '$lib/schemas/feature-import';
 import { eventsQuery } from '$lib/schemas/events';
+import { transitionInput, transitionResponse } from '$lib/schemas/transitions';
 import {
 	activityQuery,
 	apiTokenInput,
@@ -167,6 +168,20 @@ export const operations: Record<string, Partial<Record<Method, Operation>>> = {
 				'Correct the reason for the change or edit the settings (units, standard, general tolerance) while not frozen',
 			body: revisionPatch,
 			success: 200
+		}
+	},
+	'/teams/{team}/drawings/{number}/revisions/{letter}/transitions': {
+		get: {
+			summary: "The revision's state changes, oldest first: from, to, who, when and the message",
+			response: z.array(transitionResponse),
+			success: 200
+		},
+		post: {
+			summary:
+				'Move the revision `{to, message}`: submit (draft → in-check) and resubmit (returned → in-check) by an author; return (in-check → returned, message required), approve (in-check → approved), release (approved → released; the previously released revision becomes superseded) and reopen (approved → in-check, message required) by a checker or admin. 409 invalid_transition for a move the states do not have, 403 forbidden for a move your role may not make, 403 separation_of_duties to approve what you uploaded or submitted (unless the team allows self-approval), 409 open_findings listing the open critical and major findings that are not waived. Answers the move with the revision as it now stands',
+			body: transitionInput,
+			response: transitionResponse.extend({ revision: z.record(z.string(), z.unknown()) }),
+			success: 201
 		}
 	},
 	'/teams/{team}/drawings/{number}/revisions/{letter}/file': {
@@ -394,10 +409,19 @@ const jsonSchema = (schema: z.ZodType) =>
 export const errorCodes: Record<number, string[]> = {
 	400: ['invalid'],
 	401: ['unauthenticated'],
-	403: ['forbidden'],
+	403: ['forbidden', 'separation_of_duties'],
 	404: ['not_found'],
 	405: ['method_not_allowed'],
-	409: ['conflict', 'stale', 'frozen', 'in_use', 'not_owner', 'invalid_transition', 'too_late'],
+	409: [
+		'conflict',
+		'stale',
+		'frozen',
+		'in_use',
+		'not_owner',
+		'invalid_transition',
+		'too_late',
+		'open_findings'
+	],
 	413: ['too_large'],
 	415: ['not_pdf', 'unsupported_media_type'],
 	422: ['unreadable_pdf', 'encrypted_pdf', 'too_many_pages', 'duplicate_revision', 'invalid_rows'],

@@ -26,6 +26,7 @@ import type { RulebookTeam } from '../../tolerance/rulebook/types';
 import { featureKinds } from '../../features';
 import { FIT_INTENTS, type TemperatureInput } from '../../tolerance/fit';
 import { findingKinds, findingStates, severities } from '../../findings';
+import { revisionStates } from '../../revisions';
 
 // Auth.js tables (shape expected by @auth/drizzle-adapter); sessions are JWTs, so no sessions table.
 export const users = pgTable('users', {
@@ -224,19 +225,7 @@ export const activity = pgTable(
 	]
 );
 
-export const revisionStates = [
-	'draft',
-	'in-check',
-	'returned',
-	'approved',
-	'released',
-	'superseded'
-] as const;
-export type RevisionState = (typeof revisionStates)[number];
-
-/** Approved and released revisions (and released ones later superseded) no longer change. */
-export const frozenStates: readonly RevisionState[] = ['approved', 'released', 'superseded'];
-export const isFrozen = (state: RevisionState) => frozenStates.includes(state);
+export { frozenStates, isFrozen, revisionStates, type RevisionState } from '../../revisions';
 
 export type GeneralToleranceSetting = GeneralTolerance | null;
 
@@ -292,10 +281,32 @@ export const revisions = pgTable(
 		uploadedBy: uuid('uploaded_by').references(() => users.id, { onDelete: 'set null' }),
 		// The revision's own copy of the drawing's settings, taken at upload and frozen with it.
 		settings: jsonb('settings').$type<RevisionSettings>().notNull(),
+		// Who approved and who released it, and when (cleared when an approval is reopened).
+		approvedBy: uuid('approved_by').references(() => users.id, { onDelete: 'set null' }),
+		approvedAt: timestamp('approved_at', { withTimezone: true }),
+		releasedBy: uuid('released_by').references(() => users.id, { onDelete: 'set null' }),
+		releasedAt: timestamp('released_at', { withTimezone: true }),
 		version: integer('version').notNull().default(1),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 	},
 	(table) => [uniqueIndex('revisions_drawing_letter_idx').on(table.drawingId, table.letter)]
+);
+
+/** Each state change of a revision (PRODUCT.md §3): who, when, from what to what, and why. */
+export const revisionTransitions = pgTable(
+	'revision_transitions',
+	{
+		id: bigserial('id', { mode: 'number' }).primaryKey(),
+		revisionId: uuid('revision_id')
+			.notNull()
+			.references(() => revisions.id, { onDelete: 'cascade' }),
+		from: text('from', { enum: revisionStates }).notNull(),
+		to: text('to', { enum: revisionStates }).notNull(),
+		message: text('message').notNull().default(''),
+		byId: uuid('by_id').references(() => users.id, { onDelete: 'set null' }),
+		at: timestamp('at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(table) => [index('revision_transitions_revision_idx').on(table.revisionId, table.id)]
 );
 
 /** A geometric tolerance as stored: the calc API's control shape (PRODUCT.md §6 `controls`). */
@@ -523,6 +534,7 @@ export type FeatureRow = typeof features.$inferSelect;
 export type UserRow = typeof users.$inferSelect;
 export type DrawingRow = typeof drawings.$inferSelect;
 export type RevisionRow = typeof revisions.$inferSelect;
+export type RevisionTransitionRow = typeof revisionTransitions.$inferSelect;
 export type TeamRow = typeof teams.$inferSelect;
 export type OutboxRow = typeof outbox.$inferSelect;
 

@@ -38,7 +38,14 @@ export const demoFindings: DemoFinding[] = [
 				by: 'checker',
 				comment:
 					'@tomas the bore limits are for the machined size. Is the bore masked before anodising, or should the limits be after coating?'
-			}
+			},
+			{
+				by: 'drafter',
+				comment:
+					'The bore is masked before anodising, so its limits stay the machined size. The shop plugs it as usual.'
+			},
+			{ by: 'drafter', to: 'answered', message: 'Bore masked: the limits are machined sizes.' },
+			{ by: 'checker', to: 'resolved', message: 'Masking confirmed; the limits stand.' }
 		]
 	},
 	{

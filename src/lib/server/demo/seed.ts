@@ -22,6 +22,10 @@ import { demoDrawingPdf, demoDrawings } from './drawings';
 import { demoPeople } from './people';
 import { demoReviews, pumpAssembly } from './review';
 import { demoFindings, type DemoFinding, type DemoPerson } from './findings';
+import { demoMovesAfter, demoMovesBefore, demoWaiverReason, type DemoMove } from './review-loop';
+import { blockingFindings } from '../db/queries/findings';
+import { transitionRevision } from '../transitions';
+import { transitionInput } from '$lib/schemas/transitions';
 import { createUser, getUserByEmail } from '../db/queries/users';
 import { drawings, teams, type Role, type TeamRow, type UserRow } from '../db/schema';
 import { hashPassword } from '../passwords';
@@ -61,7 +65,9 @@ export async function seedDemo(db: Db, password: string, storage: Storage, tempD
 		await seedDrawings(db, storage, tempDir, team.id, drafter);
 		const seeded = await seedFeatures(db, team, drafter);
 		await seedFits(db, team, drafter, seeded);
+		await seedMoves(db, team, { checker, drafter }, seeded, demoMovesBefore);
 		await seedFindings(db, team, { checker, drafter }, seeded);
+		await seedMoves(db, team, { checker, drafter }, seeded, demoMovesAfter);
 	}
 }
 
@@ -278,5 +284,42 @@ async function seedFindings(
 			if (!done.ok) throw new Error(`Demo thread on ${demo.drawing}: ${done.message}`);
 			finding = (await getFinding(db, place.revision.id, finding.id))!;
 		}
+	}
+}
+
+/**
+ * The demo's review loop (demo/review-loop.ts) through the same moves a person makes, on the
+ * drawings whose features were seeded in this run.
+ */
+async function seedMoves(
+	db: Db,
+	team: TeamRow,
+	people: Record<DemoPerson, UserRow>,
+	seeded: Map<string, { id: string; place: FeaturePlace }>,
+	moves: DemoMove[]
+) {
+	const places = new Map(
+		[...seeded.values()].map((s) => [s.place.drawing.number, { ...s.place, team }])
+	);
+	for (const move of moves) {
+		const place = places.get(move.drawing);
+		if (!place) continue;
+		if (move.to === 'approved') {
+			const judge = { user: people[move.by], role: move.by };
+			for (const finding of await blockingFindings(db, place.revision.id)) {
+				const waived = await changeFinding(db, judge, place, finding, {
+					version: finding.version,
+					waiver: { reason: demoWaiverReason }
+				});
+				if (!waived.ok) throw new Error(`Demo waiver on ${move.drawing}: ${waived.message}`);
+			}
+		}
+		const done = await transitionRevision(
+			db,
+			{ user: people[move.by], role: move.by },
+			place,
+			transitionInput.parse({ to: move.to, message: move.message })
+		);
+		if (!done.ok) throw new Error(`Demo move of ${move.drawing} to ${move.to}: ${done.message}`);
 	}
 }

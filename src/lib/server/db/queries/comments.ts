@@ -1,8 +1,10 @@
 import { and, asc, eq } from 'drizzle-orm';
 import type { Db } from '../connect';
 import { comments, type CommentRow } from '../schema';
+import { takesComments } from '$lib/revisions';
 import { recordActivity, type Actor } from './activity';
 import { appendEvent } from './revision-events';
+import { lockRevision } from './revision-writes';
 
 /** What a thread hangs on: a finding or a feature. */
 export type ThreadSubject = { findingId: string } | { featureId: string };
@@ -47,7 +49,8 @@ const stored = (row: CommentRow) => ({
 
 /**
  * Adds a comment to the thread of `subject`, or replaces the body of `comment` (which shows as
- * edited from then on); the trail keeps both bodies.
+ * edited from then on); the trail keeps both bodies. The revision is locked first: an approved
+ * or superseded one takes no comments (`RevisionFrozen`), a released one does.
  */
 export async function saveComment(
 	db: Db,
@@ -57,6 +60,7 @@ export async function saveComment(
 	values: { body: string; mentions: string[] }
 ) {
 	return db.transaction(async (tx) => {
+		await lockRevision(tx, { id: place.revisionId }, (state) => !takesComments(state));
 		const before = 'comment' in target ? target.comment : null;
 		const [row] =
 			'comment' in target

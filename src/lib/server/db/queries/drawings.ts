@@ -232,6 +232,10 @@ export function publicRevision(row: RevisionRow) {
 		size: row.size,
 		uploadedBy: row.uploadedBy,
 		createdAt: row.createdAt,
+		approvedBy: row.approvedBy ?? null,
+		approvedAt: row.approvedAt ?? null,
+		releasedBy: row.releasedBy ?? null,
+		releasedAt: row.releasedAt ?? null,
 		version: row.version
 	};
 }

@@ -79,6 +79,28 @@ export async function openFindingsByFeature(db: Db, revisionId: string) {
 	return new Map(rows.map((r) => [r.featureId!, Number(r.count)]));
 }
 
+/** Severities that hold up an approval while a finding of theirs is open (PRODUCT.md §3). */
+export const blockingSeverities = ['critical', 'major'] as const;
+
+/**
+ * The findings that refuse an approval: critical or major, open (raised or answered) and not
+ * waived, by number. The one place the approval gate asks.
+ */
+export async function blockingFindings(db: Db, revisionId: string) {
+	return db
+		.select()
+		.from(findings)
+		.where(
+			and(
+				eq(findings.revisionId, revisionId),
+				inArray(findings.severity, blockingSeverities),
+				inArray(findings.state, [...openStates]),
+				isNull(findings.waiver)
+			)
+		)
+		.orderBy(asc(findings.number));
+}
+
 /** A finding of the revision by its id or its number. */
 export async function getFinding(db: Db, revisionId: string, which: string | { number: number }) {
 	const [row] = await db

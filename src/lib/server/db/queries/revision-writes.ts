@@ -1,12 +1,19 @@
 /*
- * Writes to what a revision holds (features, fits, findings): each runs in one transaction that
- * locks the revision and refuses a frozen one, checks the version the writer saw, records the
- * change on the activity trail and appends it to the revision's change feed (the boards' live
- * events, `revision-events.ts`).
+ * Writes to what a revision holds (features, fits, findings) and to the revision's state: each
+ * runs in one transaction that locks the revision and refuses a frozen one (a state change
+ * takes frozen ones too), checks the version the writer saw, records the change on the
+ * activity trail and appends it to the revision's change feed (the boards' live events,
+ * `revision-events.ts`).
  */
 import { eq } from 'drizzle-orm';
 import type { Db } from '../connect';
-import { isFrozen, revisions, type DrawingRow, type RevisionRow } from '../schema';
+import {
+	isFrozen,
+	revisions,
+	type DrawingRow,
+	type RevisionRow,
+	type RevisionState
+} from '../schema';
 import { recordActivity, type ActivityEntry, type Actor } from './activity';
 import { recheckRevision, type RecheckScope } from './rule-findings';
 import { appendEvent } from './revision-events';
@@ -31,16 +38,24 @@ export class StaleWrite<Row> extends Error {
 	}
 }
 
-/** Locks the revision for the change and refuses a frozen one (approved, released). */
-export async function lockOpenRevision(tx: Db, revision: RevisionRow) {
+/** Locks the revision for the change; `refuse` (default: frozen) throws `RevisionFrozen`. */
+export async function lockRevision(
+	tx: Db,
+	revision: Pick<RevisionRow, 'id'>,
+	refuse: (state: RevisionState) => boolean = isFrozen
+) {
 	const [locked] = await tx
 		.select()
 		.from(revisions)
 		.where(eq(revisions.id, revision.id))
 		.for('update');
-	if (isFrozen(locked.state)) throw new RevisionFrozen(locked);
+	if (refuse(locked.state)) throw new RevisionFrozen(locked);
 	return locked;
 }
+
+/** Locks the revision for the change and refuses a frozen one (approved, released). */
+export const lockOpenRevision = (tx: Db, revision: Pick<RevisionRow, 'id'>) =>
+	lockRevision(tx, revision);
 
 /** Who writes, and on which revision of which drawing. */
 export interface RevisionPlace {
@@ -53,9 +68,11 @@ type Written = { id: string; version: number };
 
 export interface RevisionWrite<Row extends Written> {
 	/** The trail's (and the change feed's) name for the row. */
-	entity: 'feature' | 'fit' | 'finding';
-	/** Checks under the lock before the write; throws to refuse. */
-	check?: (tx: Db) => Promise<void>;
+	entity: 'feature' | 'fit' | 'finding' | 'revision';
+	/** Checks under the lock (given the locked revision) before the write; throws to refuse. */
+	check?: (tx: Db, locked: RevisionRow) => Promise<void>;
+	/** A change of the revision's own state: frozen revisions take it too (the check judges). */
+	stateChange?: boolean;
 	/** The write (`… .returning()`); no row back means the version it was made against is gone. */
 	write: (tx: Db) => Promise<Row[]>;
 	/** The error for a write that found no row at its version (a `StaleWrite`). */
@@ -79,8 +96,8 @@ export async function writeOnRevision<Row extends Written>(
 	change: RevisionWrite<Row>
 ): Promise<Row> {
 	return db.transaction(async (tx) => {
-		await lockOpenRevision(tx, revision);
-		await change.check?.(tx);
+		const locked = await lockRevision(tx, revision, change.stateChange ? () => false : isFrozen);
+		await change.check?.(tx, locked);
 		const [row] = await change.write(tx);
 		if (!row) throw (await change.stale?.(tx)) ?? new Error(`The ${change.entity} was not written`);
 		const recorded = change.record(row);

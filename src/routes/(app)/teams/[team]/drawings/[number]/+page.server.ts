@@ -13,6 +13,8 @@ import { readDrawingForm } from '$lib/server/drawing-forms';
 import { requireDrawing } from '$lib/server/drawings';
 import { refuseForm } from '$lib/server/forms';
 import { nextRevisionLetter } from '$lib/revision-letters';
+import { listTransitions } from '$lib/server/db/queries/transitions';
+import { transitionJson } from '$lib/server/transitions';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params }) => {
@@ -22,11 +24,20 @@ export const load: PageServerLoad = async ({ params }) => {
 		'view'
 	);
 	const revisions = await listRevisions(db, drawing.id, { releasedOnly });
+	const moves = await listTransitions(
+		db,
+		revisions.map((r) => r.revision.id)
+	);
 	return {
 		drawing: publicDrawing(drawing),
 		revisions: revisions.map(({ revision, uploadedByName }) => ({
 			...publicRevision(revision),
-			uploadedByName
+			uploadedByName,
+			// The revision's history, newest first: who moved it, when and why.
+			history: moves
+				.filter((move) => move.revisionId === revision.id)
+				.map(transitionJson)
+				.reverse()
 		})),
 		nextLetter: nextRevisionLetter(revisions.map((r) => r.revision.letter)),
 		mayAuthor: can(membership.role, 'author'),

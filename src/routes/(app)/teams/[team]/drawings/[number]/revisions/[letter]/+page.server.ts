@@ -18,6 +18,7 @@ import { requireRevision } from '$lib/server/drawings';
 import { featuresOf } from '$lib/server/features';
 import { checkSummaryOf } from '$lib/server/rulebook';
 import { fieldErrorsOf, refuseForm } from '$lib/server/forms';
+import { movesFor, transitionsOf } from '$lib/server/transitions';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params }) => {
@@ -61,7 +62,11 @@ export const load: PageServerLoad = async ({ params }) => {
 		choices,
 		checkSummary,
 		mayCheck: can(membership.role, 'judgeFindings') && !frozen,
-		liveAfter
+		liveAfter,
+		review: {
+			moves: movesFor(membership.role, revision.state),
+			last: (await transitionsOf(db, revision.id)).at(-1) ?? null
+		}
 	};
 };
 
