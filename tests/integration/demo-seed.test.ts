@@ -13,7 +13,12 @@ import { fitsOf } from '../../src/lib/server/fits';
 import { findingsOf } from '../../src/lib/server/findings';
 import { transitionsOf } from '../../src/lib/server/transitions';
 import { commentsOf, findingThread } from '../../src/lib/server/comments';
-import { getFinding } from '../../src/lib/server/db/queries/findings';
+import {
+	blockingFindings,
+	getFinding,
+	listFindings
+} from '../../src/lib/server/db/queries/findings';
+import { demoWaiverReason } from '../../src/lib/server/demo/review-loop';
 import { createStorage } from '../../src/lib/server/storage';
 import { freshDatabase, startFakes, tempDir } from './harness';
 
@@ -173,7 +178,14 @@ describe('the demo board', () => {
 			'approve Priya Natarajan',
 			'release Priya Natarajan'
 		]);
-		expect(history[1].message).toContain('F-1');
+		expect(history[1].message).toContain('F-5');
+		// The rulebook's critical and major findings were waived, with the reason, before approval.
+		const waived = (await listFindings(database.db, housing.revision.id)).filter(
+			(f) => f.kind === 'rule' && (f.severity === 'critical' || f.severity === 'major')
+		);
+		expect(waived.map((f) => f.number)).toEqual([2, 3, 4]);
+		for (const f of waived) expect(f.waiver).toMatchObject({ reason: demoWaiverReason });
+		expect(await blockingFindings(database.db, housing.revision.id)).toEqual([]);
 		expect(housing.revision.approvedBy).toBe(history[3].by);
 		expect(housing.revision.releasedBy).toBe(history[4].by);
 		// The findings were answered and resolved between the return and the resubmission.
@@ -183,7 +195,10 @@ describe('the demo board', () => {
 			.where(eq(activity.drawingId, housing.drawing.id))
 			.orderBy(asc(activity.id));
 		const steps = trail
-			.filter((row) => row.entity === 'revision' || row.action === 'state')
+			// The rulebook's own notes on the revision are not moves.
+			.filter(
+				(row) => (row.entity === 'revision' && row.action !== 'rulebook') || row.action === 'state'
+			)
 			.map((row) =>
 				row.entity === 'revision' ? row.action : `F ${(row.after as { state: string }).state}`
 			);
