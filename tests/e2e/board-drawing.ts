@@ -72,6 +72,9 @@ export function boardFacts(page: Page): Promise<BoardFacts> {
 /** Waits until the view stopped and its sharp drawing (if any) is on screen. */
 export async function settled(page: Page) {
 	await waitForSheet(page);
+	// The review bar, counts and rulebook line sit above the board: a person scrolls it into
+	// view, so wheel and screenshots act on the whole board, not on the page.
+	await page.locator('[data-board-viewport]').scrollIntoViewIfNeeded();
 	await page.waitForFunction(
 		() =>
 			(document.querySelector('[data-board]') as HTMLElement & { board: { idle: boolean } }).board
