@@ -155,7 +155,9 @@ export async function createFeatures(
 		await appendEvents(
 			tx,
 			revision.id,
-			rows.map((row) => ({ type: 'feature', action: 'create', id: row.id, version: row.version }))
+			rows.map((row) => ({ type: 'feature', action: 'create', id: row.id, version: row.version })),
+			// Locked at the start of this transaction (lockOpenRevision).
+			{ lock: false }
 		);
 		return rows;
 	});

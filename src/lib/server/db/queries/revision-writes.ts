@@ -116,7 +116,8 @@ export async function writeOnRevision<Row extends Written>(
 			id: row.id,
 			version: row.version
 		};
-		await appendEvent(tx, { ...event, revisionId: revision.id });
+		// The revision is locked above: its sequence numbers already commit in order.
+		await appendEvent(tx, { ...event, revisionId: revision.id, lock: false });
 		for (const other of new Set(change.listedOn?.(row) ?? [])) {
 			if (other && other !== revision.id) {
 				await appendEvent(tx, { ...event, revisionId: other, lock: false });
